@@ -1,0 +1,1 @@
+namespace QaService.Core; public static class Placeholder {}
