@@ -1,0 +1,88 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using Microsoft.Extensions.Options;
+using QaService.Api.Problems;
+using QaService.Core.Assessment;
+using QaService.Core.Reporting;
+
+namespace QaService.Api.Assessments;
+
+/// <summary>
+/// Reads a JSON request body into <typeparamref name="T"/>, turning every way it can fail into a 4xx
+/// problem: wrong media type (415), too large (413), not JSON or wrong shape (400 with a pointer).
+/// </summary>
+internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) where T : class
+{
+    public async Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, CancellationToken cancellationToken)
+    {
+        if (!request.HasJsonContentType())
+        {
+            var given = string.IsNullOrEmpty(request.ContentType) ? "no Content-Type" : $"Content-Type \"{request.ContentType}\"";
+            var hint = request.HasFormContentType
+                ? "multipart/form-data uploads of field files are not supported yet; send the request as application/json"
+                : "send the request as application/json";
+            return (null, InputProblems.Status(StatusCodes.Status415UnsupportedMediaType, "Unsupported media type", $"{given}: {hint}"));
+        }
+        if (request.ContentLength > limits.Value.MaxBodyBytes)
+            return (null, TooLarge());
+
+        try
+        {
+            var value = await JsonSerializer.DeserializeAsync<T>(request.Body, ReportJson.Read, cancellationToken);
+            return value is null
+                ? (null, InputProblems.Invalid([new InputError("", "the body must be a JSON object, not null")]))
+                : (value, null);
+        }
+        catch (JsonException exception)
+        {
+            return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path), Describe(exception))]));
+        }
+        catch (BadHttpRequestException exception) when (exception.StatusCode == StatusCodes.Status413PayloadTooLarge)
+        {
+            return (null, TooLarge());
+        }
+    }
+
+    private IResult TooLarge() => InputProblems.Status(StatusCodes.Status413PayloadTooLarge, "Request body too large",
+        string.Create(CultureInfo.InvariantCulture, $"the body is larger than the limit of {limits.Value.MaxBodyBytes} bytes (Limits:MaxBodyBytes)"));
+
+    /// <summary>Messages without .NET type names: say what is wrong in JSON terms and where.</summary>
+    private static string Describe(JsonException exception)
+    {
+        var where = exception.LineNumber is { } line
+            ? string.Create(CultureInfo.InvariantCulture, $" (line {line + 1}, byte {exception.BytePositionInLine + 1})")
+            : "";
+        var unmapped = UnmappedProperty().Match(exception.Message);
+        if (unmapped.Success)
+            return $"\"{unmapped.Groups["name"].Value}\" is not a field here{where}; field names are camelCase as in the API contract";
+        if (exception.Message.Contains("Duplicate", StringComparison.OrdinalIgnoreCase))
+            return $"a field appears twice in the same object{where}";
+        if (exception.Message.Contains("could not be converted", StringComparison.Ordinal))
+            return $"the value has the wrong type{where}: coordinates and accuracies are JSON numbers, ids and CRSs strings, times ISO 8601 strings";
+        return $"the body is not valid JSON{where}";
+    }
+
+    /// <summary>Turns System.Text.Json's path (<c>$.fixes.points[3].lat</c>) into an RFC 6901 pointer (<c>/fixes/points/3/lat</c>).</summary>
+    internal static string ToPointer(string? path)
+    {
+        if (string.IsNullOrEmpty(path) || path == "$")
+            return "";
+        var pointer = new StringBuilder();
+        foreach (Match segment in PathSegment().Matches(path))
+        {
+            var name = segment.Groups["name"].Success ? segment.Groups["name"].Value
+                : segment.Groups["quoted"].Success ? segment.Groups["quoted"].Value
+                : segment.Groups["index"].Value;
+            pointer.Append('/').Append(name.Replace("~", "~0").Replace("/", "~1"));
+        }
+        return pointer.ToString();
+    }
+
+    [GeneratedRegex(@"\.(?<name>[^.\[]+)|\['(?<quoted>(?:[^']|'')*)'\]|\[(?<index>\d+)\]")]
+    private static partial Regex PathSegment();
+
+    [GeneratedRegex(@"JSON property '(?<name>.*?)' could not be mapped")]
+    private static partial Regex UnmappedProperty();
+}

@@ -1,0 +1,21 @@
+using QaService.Api.Problems;
+using QaService.Api.Storage;
+
+namespace QaService.Api.Health;
+
+/// <summary>Liveness and readiness probes (api-v1 "Health").</summary>
+internal static class HealthApi
+{
+    public static void MapHealth(this IEndpointRouteBuilder routes)
+    {
+        routes.MapGet("/healthz", () => TypedResults.Ok(new { status = "serving" }))
+            .WithName("Liveness").WithSummary("200 while the process serves").WithTags("Health");
+
+        routes.MapGet("/readyz", async (IReportStore store, CancellationToken cancellationToken) =>
+                await store.IsReachableAsync(cancellationToken)
+                    ? TypedResults.Ok(new { status = "ready", storage = "reachable" })
+                    : InputProblems.Status(StatusCodes.Status503ServiceUnavailable, "Storage unreachable", "the report store did not answer; reports can be neither saved nor read"))
+            .WithName("Readiness").WithSummary("200 when storage is reachable, 503 otherwise").WithTags("Health")
+            .ProducesProblem(StatusCodes.Status503ServiceUnavailable);
+    }
+}

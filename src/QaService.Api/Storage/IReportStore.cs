@@ -1,0 +1,23 @@
+namespace QaService.Api.Storage;
+
+/// <summary>
+/// Where reports live. Reports are stored as the exact JSON returned on creation, so a later GET
+/// returns the same bytes whatever the code version.
+/// </summary>
+public interface IReportStore
+{
+    /// <summary>Creates the schema if needed. Called once at start-up.</summary>
+    Task InitializeAsync(CancellationToken cancellationToken);
+
+    /// <summary>Stores a new report. Never overwrites: an existing id is an error.</summary>
+    Task SaveAsync(StoredReport report, CancellationToken cancellationToken);
+
+    /// <summary>The report's JSON, or null when the tenant has no report with that id.</summary>
+    Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken);
+
+    /// <summary>True when the store answers a trivial query.</summary>
+    Task<bool> IsReachableAsync(CancellationToken cancellationToken);
+}
+
+/// <summary>One report row.</summary>
+public sealed record StoredReport(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string Json);

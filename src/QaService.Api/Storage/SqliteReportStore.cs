@@ -1,0 +1,81 @@
+using Microsoft.Data.Sqlite;
+using Microsoft.Extensions.Options;
+
+namespace QaService.Api.Storage;
+
+/// <summary>Reports in one SQLite file (the embedded default). WAL mode lets readers run beside a writer.</summary>
+internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IReportStore
+{
+    private readonly string connectionString = options.Value.EffectiveConnectionString;
+
+    public async Task InitializeAsync(CancellationToken cancellationToken)
+    {
+        var builder = new SqliteConnectionStringBuilder(connectionString);
+        var folder = Path.GetDirectoryName(Path.GetFullPath(builder.DataSource));
+        if (!string.IsNullOrEmpty(folder) && builder.Mode != SqliteOpenMode.Memory)
+            Directory.CreateDirectory(folder);
+
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = """
+            PRAGMA journal_mode = WAL;
+            CREATE TABLE IF NOT EXISTS reports (
+                tenant     TEXT NOT NULL,
+                id         TEXT NOT NULL,
+                created_at TEXT NOT NULL,
+                title      TEXT,
+                verdict    TEXT NOT NULL,
+                json       TEXT NOT NULL,
+                PRIMARY KEY (tenant, id)
+            );
+            """;
+        await command.ExecuteNonQueryAsync(cancellationToken);
+    }
+
+    public async Task SaveAsync(StoredReport report, CancellationToken cancellationToken)
+    {
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, $json)";
+        command.Parameters.AddWithValue("$tenant", report.Tenant);
+        command.Parameters.AddWithValue("$id", report.Id);
+        command.Parameters.AddWithValue("$created", report.CreatedAt.UtcDateTime.ToString("O"));
+        command.Parameters.AddWithValue("$title", (object?)report.Title ?? DBNull.Value);
+        command.Parameters.AddWithValue("$verdict", report.Verdict);
+        command.Parameters.AddWithValue("$json", report.Json);
+        await command.ExecuteNonQueryAsync(cancellationToken);
+    }
+
+    public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT json FROM reports WHERE tenant = $tenant AND id = $id";
+        command.Parameters.AddWithValue("$tenant", tenant);
+        command.Parameters.AddWithValue("$id", id);
+        return await command.ExecuteScalarAsync(cancellationToken) as string;
+    }
+
+    public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)
+    {
+        try
+        {
+            await using var connection = await OpenAsync(cancellationToken);
+            await using var command = connection.CreateCommand();
+            command.CommandText = "SELECT COUNT(*) FROM reports WHERE 0";
+            await command.ExecuteScalarAsync(cancellationToken);
+            return true;
+        }
+        catch (SqliteException)
+        {
+            return false;
+        }
+    }
+
+    private async Task<SqliteConnection> OpenAsync(CancellationToken cancellationToken)
+    {
+        var connection = new SqliteConnection(connectionString);
+        await connection.OpenAsync(cancellationToken);
+        return connection;
+    }
+}

@@ -1,0 +1,55 @@
+using QaService.Core.Diagnosis;
+using QaService.Core.Geodesy;
+using QaService.Core.Reporting;
+using QaService.Core.Standards;
+using QaService.Core.Statistics;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>
+/// Runs one assessment: pairing → residuals in ENU at each mark → statistics → checks → verdict.
+/// Pure: the same input, id and time give the same report.
+/// </summary>
+public static class AssessmentRunner
+{
+    public static AssessmentReport Run(ValidatedAssessment input, string id, DateTimeOffset createdAt)
+    {
+        var ellipsoid = input.MarksFrame.Crs.Ellipsoid;
+        var markGeocentric = input.Marks.Select(m => GeocentricConversion.ToGeocentric(m.Geodetic, ellipsoid)).ToArray();
+        var markIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < input.Marks.Count; i++)
+            markIndex[input.Marks[i].Id] = i;
+
+        var (pairs, unpaired) = MarkPairing.Pair(input, markGeocentric);
+        var residuals = pairs
+            .Select(p => ResidualComputation.Compute(p, markGeocentric[markIndex[p.Mark.Id]], ellipsoid,
+                input.ExclusionReasonsByFixId.GetValueOrDefault(p.Fix.Id)))
+            .ToList();
+        var included = residuals.Where(r => r.Excluded is null).ToList();
+
+        var horizontal = included.Count == 0
+            ? null
+            : HorizontalAccuracy.Compute(included.Select(r => r.DE).ToArray(), included.Select(r => r.DN).ToArray());
+        var up = input.HasVerticalComparison ? included.Where(r => r.DU is not null).Select(r => r.DU!.Value).ToArray() : [];
+        var vertical = up.Length == 0 ? null : VerticalAccuracy.Compute(up);
+
+        var context = new CheckContext(input, included, horizontal, vertical);
+        var checks = DataChecks.All.Select(check => check.Evaluate(context)).ToList();
+        var (verdict, spec) = VerdictRule.Decide(input.Spec, horizontal, vertical, checks);
+
+        return new AssessmentReport(
+            id,
+            input.Title,
+            createdAt,
+            verdict,
+            new ReportCounts(input.Marks.Count, input.Fixes.Count, pairs.Count, unpaired, residuals.Count - included.Count),
+            horizontal,
+            vertical,
+            residuals,
+            checks,
+            NssdaStatement.Compose(horizontal, vertical, input.MarksFrame.Crs.Unit),
+            ReportCautions.For(verdict, included.Count, Nssda.MinimumCheckPoints),
+            spec,
+            FrameDescription.Describe(input));
+    }
+}

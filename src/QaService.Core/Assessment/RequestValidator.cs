@@ -1,0 +1,233 @@
+using System.Globalization;
+using QaService.Core.Geodesy.Catalog;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>
+/// Checks an <see cref="AssessmentRequest"/> against api-v1 and brings every point into the common
+/// geodetic frame. Returns every problem found, each with a JSON pointer, rather than stopping at the first.
+/// </summary>
+public static class RequestValidator
+{
+    /// <summary>Default proximity pairing radius, metres (api-v1: "default 5 m").</summary>
+    public const double DefaultPairingRadiusMetres = 5.0;
+
+    /// <summary>Largest proximity pairing radius accepted, metres: beyond this, "nearest mark" stops meaning "the mark that was occupied".</summary>
+    public const double MaximumPairingRadiusMetres = 1_000.0;
+
+    /// <summary>Plausible range of coordinate epochs, decimal years (GNSS era with margin).</summary>
+    public const double MinimumEpochYear = 1950.0, MaximumEpochYear = 2150.0;
+
+    /// <summary>Longest id or title accepted, characters.</summary>
+    public const int MaximumTextLength = 200;
+
+    public static ValidationOutcome Validate(AssessmentRequest? request)
+    {
+        var errors = new List<InputError>();
+        if (request is null)
+            return ValidationOutcome.Invalid([new InputError("", "the body must be a JSON object with \"marks\" and \"fixes\"")]);
+
+        if (request.Title is { Length: > MaximumTextLength })
+            errors.Add(new("/title", $"title is longer than {MaximumTextLength} characters"));
+
+        var marksFrame = ReadFrame(request.Marks, "/marks", errors);
+        var fixesFrame = ReadFrame(request.Fixes, "/fixes", errors);
+        if (marksFrame is not null && fixesFrame is not null)
+            CheckHeightsCompatible(marksFrame, fixesFrame, errors);
+
+        var marks = marksFrame is null ? [] : ReadPoints(request.Marks!, marksFrame, "/marks", isMark: true, errors);
+        var fixes = fixesFrame is null ? [] : ReadPoints(request.Fixes!, fixesFrame, "/fixes", isMark: false, errors);
+        CheckIds(marks, fixes, errors);
+
+        var spec = ReadSpec(request.Spec, errors);
+        var radius = ReadPairing(request.Pairing, errors);
+        var exclusions = ReadExclusions(request.Exclusions, fixes, errors);
+
+        if (errors.Count > 0)
+            return ValidationOutcome.Invalid(errors);
+
+        return ValidationOutcome.Valid(new ValidatedAssessment(
+            string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim(),
+            marksFrame!, fixesFrame!, marks, fixes, spec, radius, exclusions));
+    }
+
+    private static PointSetFrame? ReadFrame(PointSet? set, string pointer, List<InputError> errors)
+    {
+        if (set is null)
+        {
+            errors.Add(new(pointer, $"\"{pointer[1..]}\" is required: an object with \"crs\", \"heights\" and \"points\""));
+            return null;
+        }
+        var resolution = CrsCatalog.Resolve(set.Crs);
+        if (!resolution.Succeeded)
+            errors.Add(new($"{pointer}/crs", resolution.Problem!));
+
+        var heightsStated = set.Heights is not null;
+        HeightReference? heights = (set.Heights?.Trim().ToLowerInvariant()) switch
+        {
+            null or "ellipsoidal" => HeightReference.Ellipsoidal,
+            "orthometric" => HeightReference.Orthometric,
+            "none" => HeightReference.None,
+            _ => null,
+        };
+        if (heights is null)
+            errors.Add(new($"{pointer}/heights", $"heights \"{set.Heights}\" is not one of \"ellipsoidal\", \"orthometric\", \"none\""));
+        if (resolution.Crs is { Kind: CrsKind.Geocentric } && heights == HeightReference.Orthometric)
+            errors.Add(new($"{pointer}/heights", "geocentric coordinates imply ellipsoidal heights; \"orthometric\" does not fit a geocentric CRS"));
+        if (heights == HeightReference.Orthometric && string.IsNullOrWhiteSpace(set.Geoid))
+            errors.Add(new($"{pointer}/geoid", "orthometric heights need the geoid model they refer to, e.g. \"egm96\""));
+
+        if (set.Epoch is { } epoch && (!double.IsFinite(epoch) || epoch < MinimumEpochYear || epoch > MaximumEpochYear))
+            errors.Add(new($"{pointer}/epoch", Invariant($"epoch {epoch} is not a decimal year in {MinimumEpochYear}..{MaximumEpochYear}")));
+
+        if (set.Points is null || set.Points.Count == 0)
+            errors.Add(new($"{pointer}/points", "at least one point is required"));
+
+        return resolution.Crs is null || heights is null
+            ? null
+            : new PointSetFrame(resolution.Crs, heights.Value, set.Geoid?.Trim().ToLowerInvariant(), set.Epoch, heightsStated);
+    }
+
+    private static void CheckHeightsCompatible(PointSetFrame marks, PointSetFrame fixes, List<InputError> errors)
+    {
+        if (marks.Heights == HeightReference.None || fixes.Heights == HeightReference.None)
+            return;
+        var mixed = marks.Heights != fixes.Heights;
+        var differentGeoids = marks.Heights == HeightReference.Orthometric && fixes.Heights == HeightReference.Orthometric
+                              && marks.Geoid != fixes.Geoid;
+        if (mixed || differentGeoids)
+        {
+            errors.Add(new("/fixes/heights",
+                $"marks have {Describe(marks)} heights and fixes {Describe(fixes)} heights; converting between them needs geoid grids, " +
+                "which are not supported yet. Send both sides in the same height reference, or \"heights\": \"none\" on one side for a horizontal-only test"));
+        }
+    }
+
+    private static string Describe(PointSetFrame frame) =>
+        frame.Heights == HeightReference.Orthometric ? $"orthometric ({frame.Geoid})" : "ellipsoidal";
+
+    private static List<FramedPoint> ReadPoints(PointSet set, PointSetFrame frame, string pointer, bool isMark, List<InputError> errors)
+    {
+        var result = new List<FramedPoint>(set.Points?.Count ?? 0);
+        if (set.Points is null)
+            return result;
+        var useHeight = frame.Heights != HeightReference.None;
+        for (var i = 0; i < set.Points.Count; i++)
+        {
+            var pointPointer = string.Create(CultureInfo.InvariantCulture, $"{pointer}/points/{i}");
+            var point = set.Points[i];
+            if (point is null)
+            {
+                errors.Add(new(pointPointer, "a point must be an object, not null"));
+                continue;
+            }
+            var id = ReadId(point, pointPointer, isMark, i, errors);
+            if (!isMark && point.Mark is { } mark && string.IsNullOrWhiteSpace(mark))
+                errors.Add(new($"{pointPointer}/mark", "mark must name a mark id, or be left out"));
+            CheckSigma(point.SigmaH, $"{pointPointer}/sigmaH", errors);
+            CheckSigma(point.SigmaV, $"{pointPointer}/sigmaV", errors);
+            var geodetic = PointConversion.ToGeodetic(frame.Crs, point, pointPointer, useHeight, errors);
+            if (geodetic is null || id is null)
+                continue;
+            var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
+            result.Add(new FramedPoint(i, id, point.Mark?.Trim(), geodetic.Value, hasHeight,
+                point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
+                point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
+                point.Time));
+        }
+        return result;
+    }
+
+    private static string? ReadId(PointRecord point, string pointer, bool isMark, int index, List<InputError> errors)
+    {
+        if (string.IsNullOrWhiteSpace(point.Id))
+        {
+            if (!isMark)
+                return string.Create(CultureInfo.InvariantCulture, $"#{index + 1}");
+            errors.Add(new($"{pointer}/id", "every mark needs an id (fixes name it in \"mark\")"));
+            return null;
+        }
+        if (point.Id.Length > MaximumTextLength)
+        {
+            errors.Add(new($"{pointer}/id", $"id is longer than {MaximumTextLength} characters"));
+            return null;
+        }
+        return point.Id.Trim();
+    }
+
+    private static void CheckSigma(double? sigma, string pointer, List<InputError> errors)
+    {
+        if (sigma is { } s && (!double.IsFinite(s) || s < 0))
+            errors.Add(new(pointer, Invariant($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
+    }
+
+    private static void CheckIds(List<FramedPoint> marks, List<FramedPoint> fixes, List<InputError> errors)
+    {
+        var markIds = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var mark in marks.Where(mark => !markIds.Add(mark.Id)))
+            errors.Add(new(Invariant($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
+
+        foreach (var fix in fixes.Where(f => f.MarkId is { Length: > 0 } && !markIds.Contains(f.MarkId)))
+            errors.Add(new(Invariant($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{fix.MarkId}\""));
+    }
+
+    private static RequiredAccuracy? ReadSpec(AccuracySpec? spec, List<InputError> errors)
+    {
+        if (spec is null)
+            return null;
+        var standard = spec.Standard?.Trim().ToLowerInvariant() ?? "nssda";
+        if (standard != "nssda")
+            errors.Add(new("/spec/standard", $"standard \"{spec.Standard}\" is not supported yet; use \"nssda\" (FGDC-STD-007.3-1998)"));
+        CheckRequirement(spec.Horizontal, "/spec/horizontal", errors);
+        CheckRequirement(spec.Vertical, "/spec/vertical", errors);
+        return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical);
+    }
+
+    private static void CheckRequirement(double? metres, string pointer, List<InputError> errors)
+    {
+        if (metres is { } m && (!double.IsFinite(m) || m <= 0))
+            errors.Add(new(pointer, Invariant($"required accuracy {m} must be a positive number of metres at 95 % confidence")));
+    }
+
+    private static double? ReadPairing(PairingOptions? pairing, List<InputError> errors)
+    {
+        if (pairing is null)
+            return null;
+        var radius = pairing.Radius ?? DefaultPairingRadiusMetres;
+        if (!double.IsFinite(radius) || radius <= 0 || radius > MaximumPairingRadiusMetres)
+            errors.Add(new("/pairing/radius", Invariant($"pairing radius {radius} must be in (0, {MaximumPairingRadiusMetres}] metres")));
+        return radius;
+    }
+
+    private static Dictionary<string, string> ReadExclusions(IReadOnlyList<Exclusion?>? exclusions, List<FramedPoint> fixes, List<InputError> errors)
+    {
+        var result = new Dictionary<string, string>(StringComparer.Ordinal);
+        if (exclusions is null)
+            return result;
+        var fixIds = fixes.Select(f => f.Id).ToHashSet(StringComparer.Ordinal);
+        for (var i = 0; i < exclusions.Count; i++)
+        {
+            var pointer = Invariant($"/exclusions/{i}");
+            var exclusion = exclusions[i];
+            if (exclusion is null || string.IsNullOrWhiteSpace(exclusion.Fix))
+                errors.Add(new($"{pointer}/fix", "an exclusion names the fix id it leaves out"));
+            else if (!fixIds.Contains(exclusion.Fix.Trim()))
+                errors.Add(new($"{pointer}/fix", $"no fix has the id \"{exclusion.Fix}\""));
+            else if (string.IsNullOrWhiteSpace(exclusion.Reason))
+                errors.Add(new($"{pointer}/reason", "say why the fix is excluded: the reason is printed on the report"));
+            else if (!result.TryAdd(exclusion.Fix.Trim(), exclusion.Reason.Trim()))
+                errors.Add(new($"{pointer}/fix", $"fix \"{exclusion.Fix}\" is excluded twice"));
+        }
+        return result;
+    }
+
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+}
+
+/// <summary>Either a validated assessment or the problems that stop it.</summary>
+public sealed record ValidationOutcome(ValidatedAssessment? Assessment, IReadOnlyList<InputError> Errors)
+{
+    public static ValidationOutcome Valid(ValidatedAssessment assessment) => new(assessment, []);
+
+    public static ValidationOutcome Invalid(IReadOnlyList<InputError> errors) => new(null, errors);
+}

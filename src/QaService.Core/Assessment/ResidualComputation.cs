@@ -1,0 +1,28 @@
+using QaService.Core.Geodesy;
+using QaService.Core.Reporting;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>
+/// Residual = fix − mark in the local east-north-up frame at the mark (api-v1 "Definitions"):
+/// both points to geocentric Cartesian coordinates, their difference rotated into ENU at the mark
+/// (EPSG Guidance Note 7-2, §4.1.2, geocentric/topocentric conversion, method EPSG 9836).
+/// Accuracy: the conversions are sub-micrometre, so a residual carries no computational error above 1e-6 m.
+/// </summary>
+public static class ResidualComputation
+{
+    public static Residual Compute(MarkFixPair pair, GeocentricCoordinate markGeocentric, Ellipsoid ellipsoid, string? exclusionReason)
+    {
+        var mark = pair.Mark;
+        var fix = pair.Fix;
+        var hasVertical = mark.HasHeight && fix.HasHeight;
+
+        // Without both heights, take the fix at the mark's height: a height difference would otherwise
+        // leak into the horizontal components through the tilt between the two ellipsoid normals.
+        var fixGeodetic = hasVertical ? fix.Geodetic : fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
+        var enu = LocalTangentPlane.Difference(markGeocentric, mark.Geodetic, GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
+        var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
+        return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, hasVertical ? enu.UpMetres : null, horizontal,
+            pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees);
+    }
+}

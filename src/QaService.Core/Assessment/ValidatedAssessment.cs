@@ -1,0 +1,54 @@
+using QaService.Core.Geodesy;
+using QaService.Core.Geodesy.Catalog;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>What the <c>h</c> values of a point set mean.</summary>
+public enum HeightReference
+{
+    /// <summary>Height above the ellipsoid of the set's CRS.</summary>
+    Ellipsoidal,
+    /// <summary>Height above a geoid model (named by the set's <c>geoid</c>).</summary>
+    Orthometric,
+    /// <summary>2D only: heights are ignored and no vertical figures are produced.</summary>
+    None,
+}
+
+/// <summary>The frame a point set was given in, after validation.</summary>
+/// <param name="HeightsStated">False when the request left <c>heights</c> out and the default was taken.</param>
+public sealed record PointSetFrame(CoordinateReferenceSystem Crs, HeightReference Heights, string? Geoid, double? EpochDecimalYear, bool HeightsStated);
+
+/// <summary>
+/// A point brought into the common geodetic frame. <see cref="Geodetic"/> holds the ellipsoidal
+/// height (0 when the point has none, as PROJ does for 2D input); <see cref="HasHeight"/> says whether
+/// it was given.
+/// </summary>
+/// <param name="Index">Position of the point in its request array (for pointers).</param>
+public sealed record FramedPoint(
+    int Index,
+    string Id,
+    string? MarkId,
+    GeodeticCoordinate Geodetic,
+    bool HasHeight,
+    double? SigmaHorizontalMetres,
+    double? SigmaVerticalMetres,
+    DateTimeOffset? Time);
+
+/// <summary>The required accuracy after validation (metres at 95 % confidence).</summary>
+public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres);
+
+/// <summary>A request that passed validation: every point is in the common frame.</summary>
+public sealed record ValidatedAssessment(
+    string? Title,
+    PointSetFrame MarksFrame,
+    PointSetFrame FixesFrame,
+    IReadOnlyList<FramedPoint> Marks,
+    IReadOnlyList<FramedPoint> Fixes,
+    RequiredAccuracy? Spec,
+    double? PairingRadiusMetres,
+    IReadOnlyDictionary<string, string> ExclusionReasonsByFixId)
+{
+    /// <summary>True when both sides carry heights that can be compared.</summary>
+    public bool HasVerticalComparison =>
+        MarksFrame.Heights != HeightReference.None && FixesFrame.Heights != HeightReference.None;
+}

@@ -1,0 +1,36 @@
+using QaService.Core.Assessment;
+using QaService.Core.Reporting;
+using QaService.Core.Statistics;
+
+namespace QaService.Core.Diagnosis;
+
+/// <summary>Everything a check may look at: the validated input, the residuals that count, the figures.</summary>
+/// <param name="Included">Residuals used in the statistics (paired, not excluded).</param>
+public sealed record CheckContext(
+    ValidatedAssessment Input,
+    IReadOnlyList<Residual> Included,
+    HorizontalAccuracy? Horizontal,
+    VerticalAccuracy? Vertical);
+
+/// <summary>One diagnosis of the data. A check never throws for odd data: it reports it.</summary>
+public interface IDataCheck
+{
+    /// <summary>Stable id as listed in api-v1 "Check ids".</summary>
+    string Id { get; }
+
+    CheckResult Evaluate(CheckContext context);
+}
+
+/// <summary>The checks every assessment runs, in report order.</summary>
+public static class DataChecks
+{
+    public static IReadOnlyList<IDataCheck> All { get; } =
+    [
+        new MinPointsCheck(),
+        new DistributionCheck(),
+        new BiasCheck(),
+        new OutlierCheck(),
+        new HeightReferenceCheck(),
+        new ReferenceAccuracyCheck(),
+    ];
+}

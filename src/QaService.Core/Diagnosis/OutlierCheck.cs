@@ -1,0 +1,77 @@
+using System.Globalization;
+using QaService.Core.Reporting;
+using QaService.Core.Statistics;
+
+namespace QaService.Core.Diagnosis;
+
+/// <summary>
+/// Blunders: the modified z-score M = 0.6745 (x − median) / MAD of each residual component, flagged
+/// when |M| &gt; 3.5 (B. Iglewicz and D. C. Hoaglin, "How to Detect and Handle Outliers", ASQC 1993;
+/// also NIST/SEMATECH e-Handbook §1.3.5.17). Median-based, so one blunder cannot hide itself by
+/// inflating the spread as it would with a 3·RMSE rule. Where MAD is zero the mean absolute
+/// deviation stands in, scaled by 1.253314 = sqrt(π/2) (as the same authors advise).
+/// Needs at least <see cref="MinimumPoints"/> residuals. Flagged fixes stay in the statistics
+/// unless the request excludes them with a reason.
+/// </summary>
+public sealed class OutlierCheck : IDataCheck
+{
+    /// <summary>|modified z| above which a residual is flagged (Iglewicz and Hoaglin 1993).</summary>
+    public const double ModifiedZLimit = 3.5;
+
+    /// <summary>Φ⁻¹(0.75): makes the MAD a consistent estimator of σ for normal data.</summary>
+    public const double NormalQuartile = 0.6745;
+
+    /// <summary>sqrt(π/2): mean absolute deviation to σ for normal data.</summary>
+    public const double MeanAbsoluteDeviationToSigma = 1.253314;
+
+    /// <summary>Fewest residuals for which a median-based rule means anything.</summary>
+    public const int MinimumPoints = 5;
+
+    public string Id => "outliers";
+
+    public CheckResult Evaluate(CheckContext context)
+    {
+        var included = context.Included;
+        if (included.Count < MinimumPoints)
+            return new CheckResult(Id, CheckStatus.Warn, $"fewer than {MinimumPoints} residuals: blunders cannot be told from spread");
+
+        var flagged = new SortedSet<string>(StringComparer.Ordinal);
+        var largest = 0.0;
+        largest = Math.Max(largest, Flag(included, r => r.DE, flagged));
+        largest = Math.Max(largest, Flag(included, r => r.DN, flagged));
+        var withHeight = included.Where(r => r.DU is not null).ToList();
+        if (withHeight.Count >= MinimumPoints)
+            largest = Math.Max(largest, Flag(withHeight, r => r.DU!.Value, flagged));
+
+        if (flagged.Count == 0)
+        {
+            return new CheckResult(Id, CheckStatus.Pass,
+                Format($"no residual has a modified z-score above {ModifiedZLimit}"), largest, ModifiedZLimit, "modified z");
+        }
+        return new CheckResult(Id, CheckStatus.Warn,
+            Format($"{flagged.Count} fix(es) lie far outside the rest (modified z-score above {ModifiedZLimit}): {string.Join(", ", flagged)}. Check them for blunders (wrong mark, unapplied antenna height, float solution); exclude them only with a documented reason"),
+            largest, ModifiedZLimit, "modified z", flagged.ToArray());
+    }
+
+    private static double Flag(IReadOnlyList<Residual> residuals, Func<Residual, double> component, SortedSet<string> flagged)
+    {
+        var values = residuals.Select(component).ToArray();
+        var median = Percentile.LinearInterpolation(values, 0.5);
+        var deviations = values.Select(v => Math.Abs(v - median)).ToArray();
+        var mad = Percentile.LinearInterpolation(deviations, 0.5);
+        var scale = mad > 0 ? mad / NormalQuartile : deviations.Average() * MeanAbsoluteDeviationToSigma;
+        if (scale <= 0)
+            return 0;
+        var largest = 0.0;
+        for (var i = 0; i < values.Length; i++)
+        {
+            var z = Math.Abs(values[i] - median) / scale;
+            largest = Math.Max(largest, z);
+            if (z > ModifiedZLimit)
+                flagged.Add(residuals[i].Fix);
+        }
+        return largest;
+    }
+
+    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,57 @@
+using System.Net;
+using System.Text.Json;
+using QaService.Api.Tests.Support;
+
+namespace QaService.Api.Tests;
+
+/// <summary>Health probes, the OpenAPI document, the explorer page and the demo (api-v1 "Health"; issue: OpenAPI with units).</summary>
+public sealed class HostingTests : IClassFixture<HostingTests.Host>
+{
+    public sealed class Host : IDisposable
+    {
+        public QaServiceFactory Factory { get; } = new(demo: true);
+        public void Dispose() => Factory.Dispose();
+    }
+
+    private readonly HttpClient client;
+
+    public HostingTests(Host host) => client = host.Factory.CreateClient();
+
+    [Theory]
+    [InlineData("/healthz")]
+    [InlineData("/readyz")]
+    public async Task Probes_answer_200(string path) =>
+        Assert.Equal(HttpStatusCode.OK, (await client.GetAsync(path)).StatusCode);
+
+    [Fact]
+    public async Task OpenApi_document_describes_the_contract_with_units()
+    {
+        var text = await client.GetStringAsync("/openapi/v1.json");
+        var document = JsonDocument.Parse(text).RootElement;
+        var paths = document.GetProperty("paths");
+        Assert.True(paths.TryGetProperty("/v1/assessments", out _));
+        Assert.True(paths.TryGetProperty("/v1/assessments/{id}", out _));
+        var schemas = document.GetProperty("components").GetProperty("schemas");
+        var horizontal = schemas.GetProperty("HorizontalAccuracy").GetProperty("properties");
+        Assert.Contains("metres", horizontal.GetProperty("cep50").GetProperty("description").GetString());
+        var point = schemas.GetProperty("PointRecord").GetProperty("properties");
+        Assert.Contains("degrees", point.GetProperty("lat").GetProperty("description").GetString());
+    }
+
+    [Fact]
+    public async Task Explorer_page_serves() =>
+        Assert.Equal(HttpStatusCode.OK, (await client.GetAsync("/swagger/index.html")).StatusCode);
+
+    [Fact]
+    public async Task Demo_report_is_there_from_the_start()
+    {
+        var report = JsonDocument.Parse(await client.GetStringAsync("/v1/assessments/demo")).RootElement;
+        Assert.Equal("demo", report.GetProperty("id").GetString());
+        Assert.Contains("Millbrook Ferry", report.GetProperty("title").GetString());
+        Assert.True(report.GetProperty("counts").GetProperty("paired").GetInt32() >= 20);
+    }
+
+    [Fact]
+    public async Task Landing_page_links_the_demo() =>
+        Assert.Contains("/v1/assessments/demo", await client.GetStringAsync("/"));
+}

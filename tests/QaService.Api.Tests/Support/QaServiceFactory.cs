@@ -1,0 +1,31 @@
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+
+namespace QaService.Api.Tests.Support;
+
+/// <summary>Hosts the real service in memory on its own SQLite file (deleted with the factory unless kept).</summary>
+public sealed class QaServiceFactory : WebApplicationFactory<Program>
+{
+    private readonly Dictionary<string, string?> settings;
+
+    public QaServiceFactory(string? databasePath = null, bool demo = false, IDictionary<string, string?>? extra = null)
+    {
+        DatabasePath = databasePath ?? Path.Combine(Path.GetTempPath(), $"qaservice-test-{Guid.NewGuid():N}.db");
+        settings = new Dictionary<string, string?>
+        {
+            ["Storage:ConnectionString"] = $"Data Source={DatabasePath};Pooling=False",
+            ["Demo:Enabled"] = demo ? "true" : "false",
+            ["Serilog:MinimumLevel:Default"] = "Warning",
+        };
+        foreach (var (key, value) in extra ?? new Dictionary<string, string?>())
+            settings[key] = value;
+    }
+
+    public string DatabasePath { get; }
+
+    protected override void ConfigureWebHost(IWebHostBuilder builder)
+    {
+        foreach (var (key, value) in settings)
+            builder.UseSetting(key, value);
+    }
+}
