@@ -1,7 +1,7 @@
 namespace QaService.Core.Geodesy;
 
 /// <summary>
-/// An oblate ellipsoid of revolution, defined (as in EPSG Guidance Note 7-2, §1.2 "Ellipsoid")
+/// An oblate ellipsoid of revolution, defined (as in the EPSG dataset and EPSG Guidance Note 7-2)
 /// by its semi-major axis <c>a</c> and inverse flattening <c>1/f</c>.
 /// </summary>
 /// <param name="Name">Human-readable name, e.g. "WGS 84".</param>
@@ -11,7 +11,7 @@ namespace QaService.Core.Geodesy;
 /// Prolate ellipsoids (f &lt; 0) are not supported.
 /// </param>
 /// <remarks>
-/// Derived quantities (EPSG Guidance Note 7-2 §1.2): f = 1/(1/f), b = a(1 − f), e² = f(2 − f),
+/// Derived quantities (standard definitions, e.g. EPSG Guidance Note 7-2 and Karney 2011, doi:10.1007/s00190-011-0445-3): f = 1/(1/f), b = a(1 − f), e² = f(2 − f),
 /// e′² = e²/(1 − e²), n = f/(2 − f). The record's equality uses only the three primary parameters.
 /// Validation of the parameters happens in the algorithms that consume the ellipsoid
 /// (<see cref="Validate"/>), so <c>default(Ellipsoid)</c> is representable but rejected when used.

@@ -105,7 +105,7 @@ public static class GeocentricConversion
         }
         else
         {
-            // Vermeille (2011) eqs. (2)-(5) with Karney's (2011, App. B) stabilised evaluation.
+            // Vermeille (2011) closed-form foot point, with Karney's (arXiv:1102.1215, App. B) stabilised evaluation.
             double pp = (r / a) * (r / a);
             double q = oneMinusE2 * (z / a) * (z / a);
             double rr = (pp + q - e4) / 6.0;

@@ -42,7 +42,7 @@ public sealed class TransverseMercator
     /// <param name="falseEastingMetres">False easting FE, metres, finite.</param>
     /// <param name="falseNorthingMetres">False northing FN, metres, finite.</param>
     /// <param name="latitudeOfOriginDegrees">Latitude of natural origin φ0, degrees, [−90, 90]; the northing of
-    /// (φ0, λ0) is FN (EPSG Guidance Note 7-2 §3.5.3.1: N = FN + k0(M − M0)).</param>
+    /// (φ0, λ0) is FN (EPSG Guidance Note 7-2, method 9807: N = FN + k0(M − M0), M the meridian arc).</param>
     /// <exception cref="ArgumentOutOfRangeException">Any parameter outside the ranges above.</exception>
     public TransverseMercator(Ellipsoid ellipsoid, double centralMeridianDegrees, double scaleFactor, double falseEastingMetres, double falseNorthingMetres, double latitudeOfOriginDegrees = 0)
     {
