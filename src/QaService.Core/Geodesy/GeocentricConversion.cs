@@ -54,7 +54,7 @@ public static class GeocentricConversion
     /// </summary>
     /// <param name="p">X, Y, Z in metres; any finite values (including the origin).</param>
     /// <param name="e">Ellipsoid (a in metres, 1/f &gt; 1 or +∞).</param>
-    /// <returns>Latitude in degrees [−90, 90], longitude in degrees (−180, 180], height in metres.</returns>
+    /// <returns>Latitude in degrees [−90, 90], longitude in degrees [−180, 180], height in metres.</returns>
     /// <remarks>
     /// Accuracy: the method is exact apart from floating-point rounding (no iteration, no series). Measured in
     /// this repository: geodetic → geocentric → geodetic round trips over all latitudes err by ≤ 3e-9 m at

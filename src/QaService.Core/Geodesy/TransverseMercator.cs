@@ -152,15 +152,15 @@ public sealed class TransverseMercator
     /// </summary>
     /// <param name="eastingMetres">Easting E, metres, finite.</param>
     /// <param name="northingMetres">Northing N, metres, finite.</param>
-    /// <returns>Latitude in degrees [−90, 90] and longitude in degrees, within 90° of λ0 and not normalised to
-    /// [−180, 180] (it is λ0 + Δλ).</returns>
+    /// <returns>Latitude in degrees [−90, 90] and longitude in degrees, reduced to [−180, 180].</returns>
     /// <remarks>
     /// Accurate to the same few nanometres as <see cref="Forward(double, double)"/> for grid coordinates that are
     /// images of the forward domain within 3900 km of the central meridian. Grid points outside the image of the
     /// hemisphere |λ − λ0| &lt; 90° (e.g. |N − FN| beyond the meridian quadrant) return a point mirrored across the
-    /// pole or equator rather than an error.
+    /// pole or equator rather than an error. Grid coordinates so far out that the series overflows
+    /// (|E − FE| ≳ 150 k0·a) are rejected.
     /// </remarks>
-    /// <exception cref="ArgumentOutOfRangeException">A non-finite input.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A non-finite input, or one for which the series overflows.</exception>
     public (double LatitudeDegrees, double LongitudeDegrees) Inverse(double eastingMetres, double northingMetres)
     {
         AngleMath.ValidateFinite(eastingMetres, nameof(eastingMetres));
@@ -194,7 +194,13 @@ public sealed class TransverseMercator
             dLonDegrees = 0;
         }
 
-        return (xiSign * latitudeDegrees, CentralMeridianDegrees + (etaSign * dLonDegrees));
+        if (!(double.IsFinite(latitudeDegrees) && double.IsFinite(dLonDegrees)))
+        {
+            throw new ArgumentOutOfRangeException(nameof(eastingMetres), eastingMetres, "Grid coordinates are outside the range where the inverse series can be evaluated.");
+        }
+
+        double longitudeDegrees = Math.IEEERemainder(CentralMeridianDegrees + (etaSign * dLonDegrees), AngleMath.FullTurnDegrees);
+        return (xiSign * latitudeDegrees, longitudeDegrees);
     }
 
     /// <summary>Karney (2011) forward map without false origin: returns (k0·A·η, k0·A·ξ) in metres.</summary>

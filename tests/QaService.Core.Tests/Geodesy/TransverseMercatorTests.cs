@@ -53,6 +53,32 @@ public sealed class TransverseMercatorTests
     }
 
     [Fact]
+    public void Inverse_ReturnsLongitudeInMinus180To180_AcrossTheAntimeridian()
+    {
+        // Zone 60 (λ0 = 177°E): a point 10° east of the CM is at 187°E ≡ 173°W.
+        TransverseMercator zone60 = Utm.Zone(60, false);
+        ProjectedCoordinate en = zone60.Forward(20, -173);
+        (double lat, double lon) = zone60.Inverse(en.EastingMetres, en.NorthingMetres);
+        Assert.Equal(20.0, lat, 1e-12);
+        Assert.Equal(-173.0, lon, 1e-12);
+    }
+
+    [Fact]
+    public void BatchForward_DoesNotAllocate()
+    {
+        TransverseMercator tm = Utm.Zone(31, false);
+        double[] lat = [10, 20, 30, 40], lon = [1, 2, 3, 4], e = new double[4], n = new double[4];
+        tm.Forward(lat, lon, e, n); // warm up (JIT)
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 100; i++)
+        {
+            tm.Forward(lat, lon, e, n);
+        }
+
+        Assert.Equal(0, GC.GetAllocatedBytesForCurrentThread() - before);
+    }
+
+    [Fact]
     public void InvalidInput_Throws()
     {
         TransverseMercator tm = Utm.Zone(31, false);
@@ -61,6 +87,7 @@ public sealed class TransverseMercatorTests
         Assert.Throws<ArgumentOutOfRangeException>(() => tm.Forward(10, double.PositiveInfinity));
         Assert.Throws<ArgumentOutOfRangeException>(() => tm.Forward(10, 93)); // 90° from the CM (3°E)
         Assert.Throws<ArgumentOutOfRangeException>(() => tm.Inverse(double.NaN, 0));
+        Assert.Throws<ArgumentOutOfRangeException>(() => tm.Inverse(1e12, 0));
         Assert.Throws<ArgumentOutOfRangeException>(() => new TransverseMercator(Ellipsoid.Wgs84, 0, 0, 0, 0));
         Assert.Throws<ArgumentException>(() => tm.Forward(new double[2], new double[1], new double[2], new double[2]));
     }
