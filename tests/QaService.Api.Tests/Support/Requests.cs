@@ -15,7 +15,7 @@ public static class Requests
             { "id": "A", "e": 500000.0, "n": 5400000.0, "h": 200.0 },
             { "id": "B", "e": 500100.0, "n": 5400100.0, "h": 201.0 } ] },
           "fixes": { "crs": "EPSG:4326", "heights": "ellipsoidal", "points": [
-            { "id": "F1", "mark": "A", "lat": 48.7470, "lon": 15.0, "h": 200.1 } ] },
+            { "id": "F1", "mark": "A", "lat": 48.753013, "lon": 15.0, "h": 200.1 } ] },
           "spec": { "standard": "nssda", "horizontal": 0.5 }
         }
         """)!.AsObject();
