@@ -1,1 +1,0 @@
-namespace QaService.Core; public static class Placeholder {}
