@@ -3,7 +3,8 @@ using QaService.Api.Assessments;
 using QaService.Api.Health;
 using QaService.Api.Home;
 
-var builder = WebApplication.CreateBuilder(args);
+// Settings ship beside the binary; the working folder is only where data/ goes.
+var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
 builder.AddQaService();
 
 var app = builder.Build();

@@ -34,10 +34,14 @@ internal static class ServiceSetup
         builder.Services.AddHostedService<StartupTasks>();
 
         builder.Services.AddProblemDetails(options => options.CustomizeProblemDetails = context =>
-            context.ProblemDetails.Extensions.TryAdd("traceId", context.HttpContext.TraceIdentifier));
+        {
+            context.ProblemDetails.Extensions.TryAdd("traceId", context.HttpContext.TraceIdentifier);
+            context.ProblemDetails.Detail ??= DefaultProblemDetail.For(context.HttpContext);
+        });
         builder.Services.AddOpenApi(options =>
         {
             options.AddSchemaTransformer<FieldDescriptionTransformer>();
+            options.AddOperationTransformer<RequestBodyTransformer>();
             options.AddDocumentTransformer((document, _, _) =>
             {
                 document.Info.Title = "QaService";

@@ -34,7 +34,10 @@ public sealed class HostingTests : IClassFixture<HostingTests.Host>
         var schemas = document.GetProperty("components").GetProperty("schemas");
         var horizontal = schemas.GetProperty("HorizontalAccuracy").GetProperty("properties");
         Assert.Contains("metres", horizontal.GetProperty("cep50").GetProperty("description").GetString());
-        var point = schemas.GetProperty("PointRecord").GetProperty("properties");
+        var request = paths.GetProperty("/v1/assessments").GetProperty("post").GetProperty("requestBody")
+            .GetProperty("content").GetProperty("application/json").GetProperty("schema");
+        var point = request.GetProperty("properties").GetProperty("fixes").GetProperty("properties")
+            .GetProperty("points").GetProperty("items").GetProperty("properties");
         Assert.Contains("degrees", point.GetProperty("lat").GetProperty("description").GetString());
     }
 

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using Microsoft.AspNetCore.Mvc;
+using QaService.Api.OpenApi;
 using QaService.Api.Problems;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
@@ -21,7 +22,7 @@ internal static class AssessmentsApi
             .WithName("CreateAssessment")
             .WithSummary("Test fixes against marks and store the conformance report")
             .WithDescription("Pairs each fix with a mark, computes residuals in east-north-up at the mark, the NSSDA/RMSE/CEP figures and checks, and returns the stored report.")
-            .Accepts<AssessmentRequest>("application/json")
+            .WithMetadata(new JsonRequestBody(typeof(AssessmentRequest)))
             .Produces<AssessmentReport>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)

@@ -8,14 +8,18 @@ internal static class HealthApi
 {
     public static void MapHealth(this IEndpointRouteBuilder routes)
     {
-        routes.MapGet("/healthz", () => TypedResults.Ok(new { status = "serving" }))
+        routes.MapGet("/healthz", () => TypedResults.Ok(new ProbeStatus("serving")))
             .WithName("Liveness").WithSummary("200 while the process serves").WithTags("Health");
 
         routes.MapGet("/readyz", async (IReportStore store, CancellationToken cancellationToken) =>
                 await store.IsReachableAsync(cancellationToken)
-                    ? TypedResults.Ok(new { status = "ready", storage = "reachable" })
+                    ? TypedResults.Ok(new ProbeStatus("ready"))
                     : InputProblems.Status(StatusCodes.Status503ServiceUnavailable, "Storage unreachable", "the report store did not answer; reports can be neither saved nor read"))
             .WithName("Readiness").WithSummary("200 when storage is reachable, 503 otherwise").WithTags("Health")
             .ProducesProblem(StatusCodes.Status503ServiceUnavailable);
     }
 }
+
+/// <summary>Body of a successful probe.</summary>
+/// <param name="Status"><c>serving</c> (liveness) or <c>ready</c> (storage reachable).</param>
+internal sealed record ProbeStatus(string Status);

@@ -3,7 +3,10 @@ using Microsoft.OpenApi;
 
 namespace QaService.Api.OpenApi;
 
-/// <summary>Adds the glossary description (with units) to every schema property that has none.</summary>
+/// <summary>
+/// Sets the glossary description (with units) on every schema property the glossary knows; the glossary
+/// wins over XML doc text so every contract field reads the same way, with its unit.
+/// </summary>
 internal sealed class FieldDescriptionTransformer : IOpenApiSchemaTransformer
 {
     public Task TransformAsync(OpenApiSchema schema, OpenApiSchemaTransformerContext context, CancellationToken cancellationToken)
@@ -12,7 +15,7 @@ internal sealed class FieldDescriptionTransformer : IOpenApiSchemaTransformer
             return Task.CompletedTask;
         foreach (var (name, property) in schema.Properties)
         {
-            if (property is OpenApiSchema concrete && string.IsNullOrEmpty(concrete.Description)
+            if (property is OpenApiSchema concrete
                 && FieldGlossary.Descriptions.TryGetValue(name, out var description))
                 concrete.Description = description;
         }

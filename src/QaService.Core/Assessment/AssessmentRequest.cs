@@ -12,12 +12,12 @@ namespace QaService.Core.Assessment;
 /// <param name="Pairing">When given, fixes without <c>mark</c> pair with the nearest mark within the radius.</param>
 /// <param name="Exclusions">Fixes the QA lead leaves out of the statistics, each with a reason.</param>
 public sealed record AssessmentRequest(
-    string? Title,
     PointSet? Marks,
     PointSet? Fixes,
-    AccuracySpec? Spec,
-    PairingOptions? Pairing,
-    IReadOnlyList<Exclusion?>? Exclusions);
+    string? Title = null,
+    AccuracySpec? Spec = null,
+    PairingOptions? Pairing = null,
+    IReadOnlyList<Exclusion?>? Exclusions = null);
 
 /// <summary>A set of points in one CRS and height reference.</summary>
 /// <param name="Crs"><c>"EPSG:&lt;code&gt;"</c> (OGC WKT arrives with the geodesy catalog).</param>
@@ -25,7 +25,7 @@ public sealed record AssessmentRequest(
 /// <param name="Geoid">Geoid model name when heights are orthometric, e.g. <c>egm96</c>.</param>
 /// <param name="Epoch">Coordinate epoch as a decimal year, e.g. 2026.4.</param>
 /// <param name="Points">The points.</param>
-public sealed record PointSet(string? Crs, string? Heights, string? Geoid, double? Epoch, IReadOnlyList<PointRecord?>? Points);
+public sealed record PointSet(string? Crs, IReadOnlyList<PointRecord?>? Points, string? Heights = null, string? Geoid = null, double? Epoch = null);
 
 /// <summary>
 /// One point; which coordinate fields it must have depends on the kind of its set's CRS
@@ -33,31 +33,31 @@ public sealed record PointSet(string? Crs, string? Heights, string? Geoid, doubl
 /// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit).
 /// </summary>
 public sealed record PointRecord(
-    string? Id,
-    string? Mark,
-    double? Lat,
-    double? Lon,
-    double? E,
-    double? N,
-    double? X,
-    double? Y,
-    double? Z,
-    double? H,
-    double? SigmaH,
-    double? SigmaV,
-    DateTimeOffset? Time);
+    string? Id = null,
+    string? Mark = null,
+    double? Lat = null,
+    double? Lon = null,
+    double? E = null,
+    double? N = null,
+    double? X = null,
+    double? Y = null,
+    double? Z = null,
+    double? H = null,
+    double? SigmaH = null,
+    double? SigmaV = null,
+    DateTimeOffset? Time = null);
 
 /// <summary>Required accuracy at 95 % confidence, metres.</summary>
 /// <param name="Standard">Accuracy standard; <c>nssda</c> (FGDC-STD-007.3-1998) in this version.</param>
 /// <param name="Horizontal">Required horizontal accuracy (radial, 95 %), metres.</param>
 /// <param name="Vertical">Required vertical accuracy (95 %), metres.</param>
-public sealed record AccuracySpec(string? Standard, double? Horizontal, double? Vertical);
+public sealed record AccuracySpec(string? Standard = null, double? Horizontal = null, double? Vertical = null);
 
 /// <summary>Proximity pairing for fixes that name no mark.</summary>
 /// <param name="Radius">Largest horizontal distance from fix to mark, metres (default 5).</param>
-public sealed record PairingOptions(double? Radius);
+public sealed record PairingOptions(double? Radius = null);
 
 /// <summary>A fix left out of the statistics on purpose (still listed among the residuals).</summary>
 /// <param name="Fix">The fix id.</param>
 /// <param name="Reason">Why it is excluded; shown on the report.</param>
-public sealed record Exclusion(string? Fix, string? Reason);
+public sealed record Exclusion(string? Fix, string? Reason = null);

@@ -25,6 +25,18 @@ internal static class CheckContexts
         return new CheckContext(input, rows, horizontal, up.Length == 0 ? null : VerticalAccuracy.Compute(up));
     }
 
+    /// <summary>
+    /// Residuals at the normal quantiles Φ⁻¹((i + ½)/n)·σ, shuffled differently per component: a sample
+    /// as clean as normal data can be, for checks that must stay quiet. The largest |z| is Φ⁻¹(1 − ½/n).
+    /// </summary>
+    public static List<(double DE, double DN, double? DU)> Quantiles(int count, double sigmaMetres)
+    {
+        double At(int i) => sigmaMetres * MathNet.Numerics.Distributions.Normal.InvCDF(0, 1, (i + 0.5) / count);
+        return Enumerable.Range(0, count)
+            .Select(i => (At(i), At(i * 7 % count), (double?)At(i * 11 % count)))
+            .ToList();
+    }
+
     /// <summary>Deterministic pseudo-normal residuals (Box–Muller on a fixed-seed generator).</summary>
     public static List<(double DE, double DN, double? DU)> Normal(int count, double sigmaMetres, int seed, double offsetE = 0, double offsetN = 0, double offsetU = 0)
     {

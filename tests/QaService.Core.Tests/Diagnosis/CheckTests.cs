@@ -49,7 +49,8 @@ public sealed class CheckTests
     [Fact]
     public void Outliers_flags_a_planted_blunder_and_only_it()
     {
-        var data = CheckContexts.Normal(25, 0.02, 5);
+        // 25 clean residuals (largest |z| = Φ⁻¹(0.98) = 2.05) plus one blunder of 0.45 m east.
+        var data = CheckContexts.Quantiles(25, 0.02);
         data[7] = (0.45, -0.30, 0.01);
         var result = Run(new OutlierCheck(), CheckContexts.From(data));
         Assert.Equal(CheckStatus.Warn, result.Status);
@@ -58,7 +59,7 @@ public sealed class CheckTests
 
     [Fact]
     public void Outliers_is_quiet_on_clean_normal_data() =>
-        Assert.Equal(CheckStatus.Pass, Run(new OutlierCheck(), CheckContexts.From(CheckContexts.Normal(25, 0.02, 6))).Status);
+        Assert.Equal(CheckStatus.Pass, Run(new OutlierCheck(), CheckContexts.From(CheckContexts.Quantiles(25, 0.02))).Status);
 
     [Fact]
     public void Height_reference_fails_on_a_geoid_sized_offset() =>
