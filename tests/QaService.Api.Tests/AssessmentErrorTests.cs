@@ -219,4 +219,43 @@ public sealed class AssessmentErrorTests : IClassFixture<AssessmentErrorTests.Ho
     [Fact]
     public async Task Wrong_method_is_405_problem() =>
         await ProblemAssert.IsProblemAsync(await client.DeleteAsync("/v1/assessments/abc"), HttpStatusCode.MethodNotAllowed);
+
+    [Theory]
+    [InlineData(500000.0, 1e15, "/marks/points/0/n")]
+    [InlineData(500000.0, -1e15, "/marks/points/0/n")]
+    [InlineData(2600000.0, 5400000.0, "/marks/points/0/e")]
+    [InlineData(500000.0, 10001000.0, "/marks/points/0/n")]
+    public async Task Projected_values_beyond_the_pole_or_zone_are_400(double easting, double northing, string pointer)
+    {
+        var body = With(b => { Mark0(b)["e"] = easting; Mark0(b)["n"] = northing; });
+        await ProblemAssert.IsProblemAsync(await client.PostJsonAsync(body), HttpStatusCode.BadRequest);
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(body), pointer, "");
+    }
+
+    [Theory]
+    [InlineData(0.0, 0.0, 0.0)]
+    [InlineData(1e300, 1e300, 1e300)]
+    [InlineData(0.0, 0.0, 6356752.314245)]
+    public async Task Geocentric_extremes_are_400(double x, double y, double z)
+    {
+        var body = With(b =>
+        {
+            b["fixes"]!["crs"] = "EPSG:4978";
+            b["fixes"]!["points"] = new JsonArray(new JsonObject { ["mark"] = "A", ["x"] = x, ["y"] = y, ["z"] = z });
+        });
+        var response = await client.PostJsonAsync(body);
+        Assert.True((int)response.StatusCode is 201 or 400, $"{(int)response.StatusCode}: {await response.Content.ReadAsStringAsync()}");
+    }
+
+    [Fact]
+    public async Task Pole_and_antimeridian_are_valid_positions()
+    {
+        var body = With(b =>
+        {
+            b["marks"] = JsonNode.Parse("""{ "crs": "EPSG:4979", "points": [ { "id": "A", "lat": 90, "lon": 180, "h": 0 }, { "id": "B", "lat": -90, "lon": -180, "h": 0 } ] }""");
+            b["fixes"] = JsonNode.Parse("""{ "crs": "EPSG:4979", "points": [ { "mark": "A", "lat": 89.9999999, "lon": -180, "h": 0.1 }, { "mark": "B", "lat": -90, "lon": 0, "h": 0 } ] }""");
+        });
+        var response = await client.PostJsonAsync(body);
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+    }
 }

@@ -6,6 +6,9 @@ namespace QaService.Api.Problems;
 /// <summary>The one error shape: RFC 9457 problem details, with an <c>errors</c> array for bad input (api-v1).</summary>
 internal static class InputProblems
 {
+    /// <summary>Most errors listed in one response: enough to fix a file in a few rounds, small enough to read.</summary>
+    public const int MaximumListedErrors = 100;
+
     public static IResult Invalid(IReadOnlyList<InputError> errors, string? detail = null)
     {
         var problem = new ProblemDetails
@@ -14,7 +17,9 @@ internal static class InputProblems
             Title = "The request has invalid input",
             Detail = detail ?? Summarise(errors),
         };
-        problem.Extensions["errors"] = errors.Select(e => new { pointer = e.Pointer, message = e.Message }).ToArray();
+        problem.Extensions["errors"] = errors.Take(MaximumListedErrors).Select(e => new { pointer = e.Pointer, message = e.Message }).ToArray();
+        if (errors.Count > MaximumListedErrors)
+            problem.Extensions["errorsNotListed"] = errors.Count - MaximumListedErrors;
         return TypedResults.Problem(problem);
     }
 

@@ -23,6 +23,12 @@ internal static class PointConversion
     /// </summary>
     internal const double MaximumTransverseMercatorOffsetMetres = 2_000_000.0;
 
+    /// <summary>
+    /// Largest |northing − false northing| accepted, metres: the pole's distance from the equator on the
+    /// WGS 84 ellipsoid (10 001 966 m, the meridian quadrant; Karney 2011 gives the formula) with margin.
+    /// </summary>
+    internal const double MaximumTransverseMercatorNorthingMetres = 10_010_000.0;
+
     private static readonly string[] GeographicFields = ["lat", "lon"];
     private static readonly string[] ProjectedFields = ["e", "n"];
     private static readonly string[] GeocentricFields = ["x", "y", "z"];
@@ -77,12 +83,20 @@ internal static class PointConversion
             errors.Add(new($"{pointer}/e", Invariant($"easting {p.E} is more than {MaximumTransverseMercatorOffsetMetres / 1000} km from the false easting of {crs.Identifier}: check the zone, the unit and that e/n are not swapped")));
             return null;
         }
-        if (!double.IsFinite(northingMetres))
+        if (!double.IsFinite(northingMetres) || Math.Abs(northingMetres - projection.FalseNorthingMetres) > MaximumTransverseMercatorNorthingMetres)
         {
-            errors.Add(new($"{pointer}/n", "northing must be a finite number"));
+            errors.Add(new($"{pointer}/n", Invariant($"northing {p.N} lies beyond the pole in {crs.Identifier}: check the zone, the hemisphere, the unit and that e/n are not swapped")));
             return null;
         }
-        var (lat, lon) = projection.Inverse(eastingMetres, northingMetres);
+        double lat, lon;
+        try
+        {
+            (lat, lon) = projection.Inverse(eastingMetres, northingMetres);
+        }
+        catch (ArgumentOutOfRangeException)
+        {
+            lat = lon = double.NaN;
+        }
         if (!double.IsFinite(lat) || Math.Abs(lat) >= 90)
         {
             errors.Add(new($"{pointer}/n", Invariant($"northing {p.N} lies beyond the pole in {crs.Identifier}: check the zone, the hemisphere and that e/n are not swapped")));
