@@ -78,12 +78,13 @@ internal static class PointConversion
         var projection = crs.Projection!;
         var eastingMetres = p.E!.Value * crs.Unit.MetresPerUnit;
         var northingMetres = p.N!.Value * crs.Unit.MetresPerUnit;
-        if (!double.IsFinite(eastingMetres) || Math.Abs(eastingMetres - projection.FalseEastingMetres) > MaximumTransverseMercatorOffsetMetres)
+        var (falseEasting, falseNorthing) = projection is TransverseMercator tm ? (tm.FalseEastingMetres, tm.FalseNorthingMetres) : (0.0, 0.0);
+        if (!double.IsFinite(eastingMetres) || Math.Abs(eastingMetres - falseEasting) > MaximumTransverseMercatorOffsetMetres)
         {
             errors.Add(new($"{pointer}/e", Invariant($"easting {p.E} is more than {MaximumTransverseMercatorOffsetMetres / 1000} km from the false easting of {crs.Identifier}: check the zone, the unit and that e/n are not swapped")));
             return null;
         }
-        if (!double.IsFinite(northingMetres) || Math.Abs(northingMetres - projection.FalseNorthingMetres) > MaximumTransverseMercatorNorthingMetres)
+        if (!double.IsFinite(northingMetres) || Math.Abs(northingMetres - falseNorthing) > MaximumTransverseMercatorNorthingMetres)
         {
             errors.Add(new($"{pointer}/n", Invariant($"northing {p.N} lies beyond the pole in {crs.Identifier}: check the zone, the hemisphere, the unit and that e/n are not swapped")));
             return null;

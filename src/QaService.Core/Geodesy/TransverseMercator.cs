@@ -27,8 +27,11 @@ namespace QaService.Core.Geodesy;
 /// </para>
 /// <para>Instances are immutable and thread-safe.</para>
 /// </remarks>
-public sealed class TransverseMercator
+public sealed class TransverseMercator : IMapProjection
 {
+    /// <inheritdoc />
+    public string MethodName => "Transverse Mercator";
+
     private readonly double _eccentricity;
     private readonly double _scaledRectifyingRadiusMetres; // k0·A
     private readonly double _originNorthingMetres;          // k0·A·ξ(φ0, 0)

@@ -2,14 +2,13 @@ namespace QaService.Core.Geodesy.Catalog;
 
 /// <summary>
 /// A coordinate reference system the service can read points in. Every CRS of this catalog is
-/// referenced to one geodetic frame (<see cref="FrameName"/>) on one ellipsoid; projected CRSs carry
+/// referenced to one geodetic frame (<see cref="Datum"/>) on one ellipsoid; projected CRSs carry
 /// their map projection.
 /// </summary>
 /// <param name="Identifier">Canonical identifier, e.g. <c>EPSG:32633</c>.</param>
 /// <param name="Name">Name as the EPSG dataset gives it, e.g. <c>WGS 84 / UTM zone 33N</c>.</param>
 /// <param name="Kind">Which coordinate fields a point in this CRS has.</param>
-/// <param name="FrameName">The geodetic reference frame (datum ensemble) the coordinates refer to.</param>
-/// <param name="Ellipsoid">The frame's ellipsoid.</param>
+/// <param name="Datum">The geodetic reference frame the coordinates refer to.</param>
 /// <param name="Unit">Linear unit of projected coordinates and heights.</param>
 /// <param name="Projection">Map projection for <see cref="CrsKind.Projected"/>; null otherwise.</param>
 /// <param name="HasHeightAxis">True where the CRS itself is three-dimensional (EPSG:4979, 4978).</param>
@@ -17,8 +16,11 @@ public sealed record CoordinateReferenceSystem(
     string Identifier,
     string Name,
     CrsKind Kind,
-    string FrameName,
-    Ellipsoid Ellipsoid,
+    GeodeticDatum Datum,
     LinearUnit Unit,
-    TransverseMercator? Projection,
-    bool HasHeightAxis);
+    IMapProjection? Projection,
+    bool HasHeightAxis)
+{
+    /// <summary>The datum's ellipsoid.</summary>
+    public Ellipsoid Ellipsoid => Datum.Ellipsoid;
+}

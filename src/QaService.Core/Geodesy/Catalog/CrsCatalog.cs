@@ -12,7 +12,6 @@ namespace QaService.Core.Geodesy.Catalog;
 /// </summary>
 public static partial class CrsCatalog
 {
-    private const string WorldGeodeticSystem1984 = "World Geodetic System 1984 ensemble";
     private const int UtmNorthBase = 32600;
     private const int UtmSouthBase = 32700;
     private const int UtmZoneCount = 60;
@@ -55,11 +54,11 @@ public static partial class CrsCatalog
         switch (epsgCode)
         {
             case 4326:
-                return new("EPSG:4326", "WGS 84", CrsKind.Geographic, WorldGeodeticSystem1984, Ellipsoid.Wgs84, LinearUnit.Metre, null, HasHeightAxis: false);
+                return new("EPSG:4326", "WGS 84", CrsKind.Geographic, GeodeticDatum.Wgs84Ensemble, LinearUnit.Metre, null, HasHeightAxis: false);
             case 4979:
-                return new("EPSG:4979", "WGS 84", CrsKind.Geographic, WorldGeodeticSystem1984, Ellipsoid.Wgs84, LinearUnit.Metre, null, HasHeightAxis: true);
+                return new("EPSG:4979", "WGS 84", CrsKind.Geographic, GeodeticDatum.Wgs84Ensemble, LinearUnit.Metre, null, HasHeightAxis: true);
             case 4978:
-                return new("EPSG:4978", "WGS 84", CrsKind.Geocentric, WorldGeodeticSystem1984, Ellipsoid.Wgs84, LinearUnit.Metre, null, HasHeightAxis: true);
+                return new("EPSG:4978", "WGS 84", CrsKind.Geocentric, GeodeticDatum.Wgs84Ensemble, LinearUnit.Metre, null, HasHeightAxis: true);
         }
 
         var south = epsgCode > UtmSouthBase && epsgCode <= UtmSouthBase + UtmZoneCount;
@@ -69,7 +68,7 @@ public static partial class CrsCatalog
 
         var zone = epsgCode - (south ? UtmSouthBase : UtmNorthBase);
         var name = string.Create(CultureInfo.InvariantCulture, $"WGS 84 / UTM zone {zone}{(south ? 'S' : 'N')}");
-        return new($"EPSG:{epsgCode}", name, CrsKind.Projected, WorldGeodeticSystem1984, Ellipsoid.Wgs84,
+        return new($"EPSG:{epsgCode}", name, CrsKind.Projected, GeodeticDatum.Wgs84Ensemble,
             LinearUnit.Metre, Utm.Zone(zone, south), HasHeightAxis: false);
     }
 
