@@ -27,7 +27,7 @@ public sealed class CrsCatalogTests
     public void Utm_zone_parameters_are_those_of_the_epsg_dataset()
     {
         // EPSG:32733 "WGS 84 / UTM zone 33S": CM 15° E, k0 0.9996, FE 500 000 m, FN 10 000 000 m (projinfo EPSG:32733, PROJ 9.1.1).
-        var projection = CrsCatalog.ByCode(32733)!.Projection!;
+        var projection = Assert.IsType<QaService.Core.Geodesy.TransverseMercator>(CrsCatalog.ByCode(32733)!.Projection);
         Assert.Equal(15.0, projection.CentralMeridianDegrees);
         Assert.Equal(0.9996, projection.ScaleFactor);
         Assert.Equal(500_000.0, projection.FalseEastingMetres);
