@@ -18,7 +18,9 @@ public static partial class CrsCatalog
 
     /// <summary>The identifiers resolved by this catalog, for error messages and discovery.</summary>
     public const string SupportedSummary =
-        "EPSG:4326, EPSG:4979, EPSG:4978 and the WGS 84 / UTM zones EPSG:32601–32660 and EPSG:32701–32760";
+        "EPSG:4326, EPSG:4979, EPSG:4978, the WGS 84 / UTM zones EPSG:32601–32660 and EPSG:32701–32760, " +
+        "ITRF2008 (5332, 7911), ITRF2014 (7789, 7912), ITRF2020 (9988–9990), ETRF2000 (7930, 7931, 9067), ETRS89 (4936, 4937, 4258), " +
+        "NAD83(2011) (6317–6319, UTM 1N–19N 6330–6348), GDA2020 (7842–7844)";
 
     /// <summary>
     /// Reads <c>EPSG:code</c> (any case), <c>urn:ogc:def:crs:EPSG::code</c> or
@@ -60,6 +62,9 @@ public static partial class CrsCatalog
             case 4978:
                 return new("EPSG:4978", "WGS 84", CrsKind.Geocentric, GeodeticDatum.Wgs84Ensemble, LinearUnit.Metre, null, HasHeightAxis: true);
         }
+
+        if (FrameByCode(epsgCode) is { } frame)
+            return frame;
 
         var south = epsgCode > UtmSouthBase && epsgCode <= UtmSouthBase + UtmZoneCount;
         var north = epsgCode > UtmNorthBase && epsgCode <= UtmNorthBase + UtmZoneCount;

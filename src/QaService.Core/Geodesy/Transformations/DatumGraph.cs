@@ -22,7 +22,9 @@ public sealed record GridShiftDefinition(string SourceDatum, string TargetDatum,
 /// The datum transformations known to the service as a graph whose nodes are EPSG datum codes, searched
 /// for the path with the smallest summed accuracy (the way PROJ states the accuracy of a concatenated
 /// operation: the sum of its steps'), ties broken by fewer steps. Area of use is not considered: unlike PROJ,
-/// the service never picks a different operation per point.
+/// the service never picks a different operation per point. Because of that, datum ensembles (WGS 84, ETRS89)
+/// may only start or end a path: EPSG's null transformations to WGS 84 hold only inside their area of use
+/// (ETRS89 → WGS 84 in Europe), so a world-wide route through one would borrow an accuracy it does not have.
 /// </summary>
 public sealed class DatumGraph
 {
@@ -30,6 +32,9 @@ public sealed class DatumGraph
     private readonly IReadOnlyList<DatumTransformationDefinition> _helmerts;
     private readonly IReadOnlyList<FrameEquivalence> _equivalences;
     private readonly IReadOnlyList<GridShiftDefinition> _grids;
+
+    /// <summary>EPSG datum ensembles: WGS 84 (EPSG:6326) and ETRS89 (EPSG:6258); endpoints only (see summary).</summary>
+    private static readonly HashSet<string> EnsembleDatums = new(StringComparer.Ordinal) { "EPSG:6326", "EPSG:6258" };
 
     public DatumGraph(IEnumerable<DatumTransformationDefinition> helmerts, IEnumerable<FrameEquivalence> equivalences,
         IEnumerable<GridShiftDefinition> grids)
@@ -82,6 +87,8 @@ public sealed class DatumGraph
             if (best == toDatum)
                 break;
             done.Add(best);
+            if (best != fromDatum && EnsembleDatums.Contains(best))
+                continue;
             foreach (var edge in _edges.GetValueOrDefault(best) ?? [])
             {
                 var next = (cost[best].Accuracy + edge.Step.AccuracyMetres, cost[best].Steps + 1);

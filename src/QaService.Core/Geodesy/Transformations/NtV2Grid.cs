@@ -46,7 +46,7 @@ public sealed class NtV2Grid
         if (!little && BinaryPrimitives.ReadInt32BigEndian(data.AsSpan(8)) != HeaderRecords)
             throw new InvalidDataException("not an NTv2 file: NUM_OREC is not 11");
         var reader = new Reader(data, little);
-        var subGridCount = reader.Int(RecordBytes);
+        var subGridCount = reader.Int(2 * RecordBytes); // NUM_FILE
         var units = reader.Text(3 * RecordBytes).Trim();
         if (!units.Equals("SECONDS", StringComparison.OrdinalIgnoreCase))
             throw new InvalidDataException($"NTv2 GS_TYPE \"{units}\" is not supported (only SECONDS)");

@@ -15,8 +15,8 @@ namespace QaService.Core.Geodesy.Vertical;
 /// </remarks>
 public sealed class GeoidGrid
 {
-    /// <summary>GTX and NGA grids mark missing nodes with −88.8888 m (values at or below this are treated as missing).</summary>
-    public const double MissingValueMetres = -88.8888;
+    /// <summary>GTX grids mark missing nodes with exactly −88.8888 m as float32 (PROJ's GTX reader tests the same value).</summary>
+    public const float MissingValueMetres = -88.8888f;
 
     private const double FullTurnDegrees = 360.0;
     private readonly float[] _values;
@@ -77,8 +77,10 @@ public sealed class GeoidGrid
         var fc = column - c0;
         double v00 = _values[r0 * Columns + c0], v01 = _values[r0 * Columns + c1];
         double v10 = _values[(r0 + 1) * Columns + c0], v11 = _values[(r0 + 1) * Columns + c1];
-        if (v00 <= MissingValueMetres || v01 <= MissingValueMetres || v10 <= MissingValueMetres || v11 <= MissingValueMetres)
+        if (IsMissing(v00) || IsMissing(v01) || IsMissing(v10) || IsMissing(v11))
             return double.NaN;
         return (1 - fr) * ((1 - fc) * v00 + fc * v01) + fr * ((1 - fc) * v10 + fc * v11);
     }
+
+    private static bool IsMissing(double value) => (float)value == MissingValueMetres;
 }
