@@ -15,7 +15,7 @@ internal static class FieldGlossary
         ["crs"] = "CRS as \"EPSG:<code>\". Supported now: EPSG:4326, 4979, 4978 and WGS 84 / UTM zones 32601–32660, 32701–32760.",
         ["heights"] = "What h is: \"ellipsoidal\" (default), \"orthometric\" (with geoid) or \"none\" (2D test, no vertical figures).",
         ["geoid"] = "Geoid model of orthometric heights, e.g. \"egm96\".",
-        ["epoch"] = "Coordinate epoch, decimal year (e.g. 2026.4).",
+        ["epoch"] = "Coordinate (observation) epoch, decimal year (e.g. 2026.4); time-dependent datum steps are evaluated at it.",
         ["points"] = "The points; coordinate fields follow the CRS kind.",
         ["id"] = "Identifier (marks: required and unique; fixes: optional, defaults to #row).",
         ["mark"] = "On a fix: id of the mark it occupied. On a residual: the mark id.",
@@ -85,7 +85,13 @@ internal static class FieldGlossary
         ["statement"] = "NSSDA reporting sentence in the marks' CRS unit.",
         ["cautions"] = "What the report is not, and how to use it safely.",
         ["frames"] = "How both sides were brought into one frame.",
-        ["operation"] = "The steps used, in words.",
+        ["operation"] = "The steps used, in words: each with its parameters (Helmert values, EPSG code, epochs) and accuracy in metres, then the total.",
+        // transform
+        ["from"] = "Source CRS of POST /v1/transform, \"EPSG:<code>\".",
+        ["to"] = "Target CRS of POST /v1/transform, \"EPSG:<code>\".",
+        ["fromGeoid"] = "When given (e.g. \"egm96\"), the input h are orthometric heights on this geoid; otherwise ellipsoidal.",
+        ["toGeoid"] = "When given (e.g. \"egm96\"), the output h are orthometric heights on this geoid; otherwise ellipsoidal.",
+        ["accuracy"] = "Accuracy of the whole operation, metres: the sum of the steps' EPSG-stated accuracies (0 for exact conversions).",
         ["horizontalMet"] = "Whether horizontal nssda95 ≤ the requirement; null when not judged.",
         ["verticalMet"] = "Whether vertical nssda95 ≤ the requirement; null when not judged.",
     };
