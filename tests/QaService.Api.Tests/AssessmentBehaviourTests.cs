@@ -9,17 +9,11 @@ namespace QaService.Api.Tests;
 /// Pairing, exclusions, missing heights and the other input forms of api-v1. Positions are made with
 /// PROJ 9.1.1 (cs2cs) where a value matters; the values quoted beside each request say how.
 /// </summary>
-public sealed class AssessmentBehaviourTests : IClassFixture<AssessmentBehaviourTests.Host>
+public sealed class AssessmentBehaviourTests : IClassFixture<ServiceHost>
 {
-    public sealed class Host : IDisposable
-    {
-        public QaServiceFactory Factory { get; } = new();
-        public void Dispose() => Factory.Dispose();
-    }
-
     private readonly HttpClient client;
 
-    public AssessmentBehaviourTests(Host host) => client = host.Factory.CreateClient();
+    public AssessmentBehaviourTests(ServiceHost host) => client = host.Factory.CreateClient();
 
     private async Task<JsonElement> CreateAsync(JsonNode body)
     {

@@ -7,17 +7,11 @@ using QaService.Api.Tests.Support;
 namespace QaService.Api.Tests;
 
 /// <summary>Every bad request is a 4xx problem (api-v1 "Errors") with a pointer to the offending item.</summary>
-public sealed class AssessmentErrorTests : IClassFixture<AssessmentErrorTests.Host>
+public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
 {
-    public sealed class Host : IDisposable
-    {
-        public QaServiceFactory Factory { get; } = new();
-        public void Dispose() => Factory.Dispose();
-    }
-
     private readonly HttpClient client;
 
-    public AssessmentErrorTests(Host host) => client = host.Factory.CreateClient();
+    public AssessmentErrorTests(ServiceHost host) => client = host.Factory.CreateClient();
 
     private static JsonObject With(Action<JsonObject> change)
     {

@@ -5,17 +5,11 @@ using QaService.Api.Tests.Support;
 namespace QaService.Api.Tests;
 
 /// <summary>Health probes, the OpenAPI document, the explorer page and the demo (api-v1 "Health"; issue: OpenAPI with units).</summary>
-public sealed class HostingTests : IClassFixture<HostingTests.Host>
+public sealed class HostingTests : IClassFixture<DemoServiceHost>
 {
-    public sealed class Host : IDisposable
-    {
-        public QaServiceFactory Factory { get; } = new(demo: true);
-        public void Dispose() => Factory.Dispose();
-    }
-
     private readonly HttpClient client;
 
-    public HostingTests(Host host) => client = host.Factory.CreateClient();
+    public HostingTests(DemoServiceHost host) => client = host.Factory.CreateClient();
 
     [Theory]
     [InlineData("/healthz")]

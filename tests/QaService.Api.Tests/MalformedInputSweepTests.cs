@@ -9,20 +9,14 @@ namespace QaService.Api.Tests;
 /// A deterministic sweep of mutated requests: every value of a valid request replaced in turn by
 /// values of other types and extremes, and the body truncated at many points. None may produce a 5xx.
 /// </summary>
-public sealed class MalformedInputSweepTests : IClassFixture<MalformedInputSweepTests.Host>
+public sealed class MalformedInputSweepTests : IClassFixture<ServiceHost>
 {
-    public sealed class Host : IDisposable
-    {
-        public QaServiceFactory Factory { get; } = new();
-        public void Dispose() => Factory.Dispose();
-    }
-
     private static readonly string[] Replacements =
         ["null", "\"\"", "\"x\"", "0", "-1", "1e308", "-1e308", "1e-320", "true", "[]", "{}", "[null]", "\"NaN\"", "123456789012345678901234567890", "\"EPSG:4326\""];
 
     private readonly HttpClient client;
 
-    public MalformedInputSweepTests(Host host) => client = host.Factory.CreateClient();
+    public MalformedInputSweepTests(ServiceHost host) => client = host.Factory.CreateClient();
 
     [Fact]
     public async Task No_mutated_value_produces_a_server_error()

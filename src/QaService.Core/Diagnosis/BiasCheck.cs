@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using MathNet.Numerics.Distributions;
 using QaService.Core.Reporting;
@@ -72,7 +73,6 @@ public sealed class BiasCheck : IDataCheck
         return new ComponentTest(n, mean, double.IsFinite(t) ? t : Math.Sign(t) * double.MaxValue, critical, significant);
     }
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 
     private sealed record ComponentTest(int Count, double Mean, double TStatistic, double CriticalT, bool Significant);
 }

@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy;
 using QaService.Core.Reporting;
@@ -77,5 +78,4 @@ public sealed class DistributionCheck : IDataCheck
         return closest;
     }
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

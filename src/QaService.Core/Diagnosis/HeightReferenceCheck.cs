@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Reporting;
 
@@ -64,5 +65,4 @@ public sealed class HeightReferenceCheck : IDataCheck
         : new CheckResult(Id, CheckStatus.Warn,
             $"\"heights\" was not stated for the {string.Join(" and ", sides)}, so h was taken as ellipsoidal; state it to rule out an ellipsoidal/orthometric mix");
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Reporting;
 using QaService.Core.Statistics;
@@ -73,5 +74,4 @@ public sealed class OutlierCheck : IDataCheck
         return largest;
     }
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Reporting;
 using QaService.Core.Standards;
@@ -55,5 +56,4 @@ public sealed class ReferenceAccuracyCheck : IDataCheck
             : new CheckResult(Id, CheckStatus.Warn, string.Join("; ", problems), double.IsNaN(worstH) ? null : ratio, 1 / RequiredAccuracyRatio, "ratio");
     }
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }
