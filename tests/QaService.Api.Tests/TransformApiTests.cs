@@ -7,17 +7,9 @@ using QaService.Api.Tests.Support;
 namespace QaService.Api.Tests;
 
 /// <summary>POST /v1/transform (api-v1): results against PROJ 9.1.1, and a problem with a pointer for every error path.</summary>
-public sealed class TransformApiTests : IClassFixture<TransformApiTests.Host>
+public sealed class TransformApiTests(ServiceHost host) : IClassFixture<ServiceHost>
 {
-    public sealed class Host : IDisposable
-    {
-        public QaServiceFactory Factory { get; } = new();
-        public void Dispose() => Factory.Dispose();
-    }
-
-    private readonly HttpClient client;
-
-    public TransformApiTests(Host host) => client = host.Factory.CreateClient();
+    private readonly HttpClient client = host.Factory.CreateClient();
 
     private Task<HttpResponseMessage> PostAsync(string json) =>
         client.PostAsync("/v1/transform", new StringContent(json, Encoding.UTF8, "application/json"));

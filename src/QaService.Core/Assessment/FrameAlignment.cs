@@ -1,4 +1,3 @@
-using System.Globalization;
 using QaService.Core.Geodesy;
 using QaService.Core.Geodesy.Catalog;
 using QaService.Core.Geodesy.Transformations;
@@ -55,7 +54,7 @@ public static class FrameAlignment
             text.Add($"marks: orthometric H to ellipsoidal h = H + N with the {markGeoid.Grid.Name} geoid (bilinear; EGM96 accuracy about {markGeoid.AccuracyMetres:0.#} m absolute, it cancels where both sides use it)");
         if (marksFrame.EpochDecimalYear is { } me && fixesFrame.EpochDecimalYear is { } fe && me != fe && marksFrame.Crs.Datum.FrameReferenceEpochYear is not null
             && marksFrame.Crs.Datum.Code == fixesFrame.Crs.Datum.Code)
-            text.Add(Invariant($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
+            text.Add(InvariantText.Format($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
         return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)), null);
     }
 
@@ -76,14 +75,12 @@ public static class FrameAlignment
     private static string? EpochNote(PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes)
     {
         if (fixesFrame.EpochDecimalYear is { } epoch)
-            return Invariant($"{epoch} (fixes' epoch)");
+            return InvariantText.Format($"{epoch} (fixes' epoch)");
         var times = fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).ToList();
         if (times.Count == 0)
             return null;
         var missing = fixes.Count - times.Count;
-        return Invariant($"each fix's time as a decimal year ({times.Min():0.000}–{times.Max():0.000})") +
-               (missing > 0 ? Invariant($"; {missing} fixes without time evaluated at the reference epoch") : "");
+        return InvariantText.Format($"each fix's time as a decimal year ({times.Min():0.000}–{times.Max():0.000})") +
+               (missing > 0 ? InvariantText.Format($"; {missing} fixes without time evaluated at the reference epoch") : "");
     }
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

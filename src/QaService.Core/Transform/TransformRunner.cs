@@ -1,4 +1,3 @@
-using System.Globalization;
 using QaService.Core.Assessment;
 using QaService.Core.Geodesy.Catalog;
 using QaService.Core.Geodesy.Transformations;
@@ -26,7 +25,7 @@ public static class TransformRunner
         var source = ResolveCrs(request.From, "/from", errors);
         var target = ResolveCrs(request.To, "/to", errors);
         if (request.Epoch is { } epoch && (!double.IsFinite(epoch) || epoch < RequestValidator.MinimumEpochYear || epoch > RequestValidator.MaximumEpochYear))
-            errors.Add(new("/epoch", Invariant($"epoch {epoch} is not a decimal year in {RequestValidator.MinimumEpochYear}..{RequestValidator.MaximumEpochYear}")));
+            errors.Add(new("/epoch", InvariantText.Format($"epoch {epoch} is not a decimal year in {RequestValidator.MinimumEpochYear}..{RequestValidator.MaximumEpochYear}")));
         var sourceGeoid = ResolveGeoid(request.FromGeoid, "/fromGeoid", source, errors);
         var targetGeoid = ResolveGeoid(request.ToGeoid, "/toGeoid", target, errors);
         if (request.Points is null || request.Points.Count == 0)
@@ -56,12 +55,12 @@ public static class TransformRunner
         for (var i = 0; i < buffer.Count; i++)
         {
             if (!double.IsFinite(buffer.First[i]) || !double.IsFinite(buffer.Second[i]) || !double.IsFinite(buffer.Third[i]))
-                errors.Add(new(Invariant($"/points/{i}"), $"this point cannot be carried from {source.Identifier} to {target.Identifier}: it lies outside the area a step covers (projection domain, grid or geoid extent)"));
+                errors.Add(new(InvariantText.Format($"/points/{i}"), $"this point cannot be carried from {source.Identifier} to {target.Identifier}: it lies outside the area a step covers (projection domain, grid or geoid extent)"));
         }
         if (errors.Count > 0)
             return new TransformOutcome(null, errors);
 
-        var epochNote = request.Epoch is { } t ? Invariant($"{t} (request epoch)") : null;
+        var epochNote = request.Epoch is { } t ? InvariantText.Format($"{t} (request epoch)") : null;
         return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyMetres), []);
     }
 
@@ -89,7 +88,7 @@ public static class TransformRunner
     {
         if (point is null)
         {
-            errors.Add(new(Invariant($"/points/{index}"), "a point must be an object, not null"));
+            errors.Add(new(InvariantText.Format($"/points/{index}"), "a point must be an object, not null"));
             return;
         }
         var before = errors.Count;
@@ -101,9 +100,9 @@ public static class TransformRunner
                 var lat = Required(point.Lat, "lat", index, errors);
                 var lon = Required(point.Lon, "lon", index, errors);
                 if (lat is { } la && !(Math.Abs(la) <= MaximumLatitudeDegrees))
-                    errors.Add(new(Invariant($"/points/{index}/lat"), Invariant($"latitude {la} is outside -90..90 degrees")));
+                    errors.Add(new(InvariantText.Format($"/points/{index}/lat"), InvariantText.Format($"latitude {la} is outside -90..90 degrees")));
                 if (lon is { } lo && !(Math.Abs(lo) <= MaximumLongitudeDegrees))
-                    errors.Add(new(Invariant($"/points/{index}/lon"), Invariant($"longitude {lo} is outside -180..180 degrees")));
+                    errors.Add(new(InvariantText.Format($"/points/{index}/lon"), InvariantText.Format($"longitude {lo} is outside -180..180 degrees")));
                 buffer.First[index] = lat ?? 0;
                 buffer.Second[index] = lon ?? 0;
                 break;
@@ -117,7 +116,7 @@ public static class TransformRunner
                 Foreign(point.Lat, "lat", index, crs, errors); Foreign(point.Lon, "lon", index, crs, errors);
                 Foreign(point.E, "e", index, crs, errors); Foreign(point.N, "n", index, crs, errors);
                 if (point.H is not null)
-                    errors.Add(new(Invariant($"/points/{index}/h"), "a geocentric CRS takes x, y, z only; the height is implied by them"));
+                    errors.Add(new(InvariantText.Format($"/points/{index}/h"), "a geocentric CRS takes x, y, z only; the height is implied by them"));
                 buffer.First[index] = Finite(Required(point.X, "x", index, errors), "x", index, errors);
                 buffer.Second[index] = Finite(Required(point.Y, "y", index, errors), "y", index, errors);
                 buffer.Third[index] = Finite(Required(point.Z, "z", index, errors), "z", index, errors);
@@ -128,7 +127,7 @@ public static class TransformRunner
         {
             var metres = h * crs.Unit.MetresPerUnit;
             if (!double.IsFinite(metres) || metres < PointLimits.MinimumHeightMetres || metres > PointLimits.MaximumHeightMetres)
-                errors.Add(new(Invariant($"/points/{index}/h"), Invariant($"height {h} is outside {PointLimits.MinimumHeightMetres}..{PointLimits.MaximumHeightMetres} m (in the CRS unit, {crs.Unit.PluralName})")));
+                errors.Add(new(InvariantText.Format($"/points/{index}/h"), InvariantText.Format($"height {h} is outside {PointLimits.MinimumHeightMetres}..{PointLimits.MaximumHeightMetres} m (in the CRS unit, {crs.Unit.PluralName})")));
             buffer.Third[index] = h;
             hasHeight[index] = true;
         }
@@ -139,14 +138,14 @@ public static class TransformRunner
     private static double? Required(double? value, string field, int index, List<InputError> errors)
     {
         if (value is null)
-            errors.Add(new(Invariant($"/points/{index}/{field}"), $"\"{field}\" is required"));
+            errors.Add(new(InvariantText.Format($"/points/{index}/{field}"), $"\"{field}\" is required"));
         return value;
     }
 
     private static double Finite(double? value, string field, int index, List<InputError> errors)
     {
         if (value is { } v && !double.IsFinite(v))
-            errors.Add(new(Invariant($"/points/{index}/{field}"), $"\"{field}\" must be a finite number"));
+            errors.Add(new(InvariantText.Format($"/points/{index}/{field}"), $"\"{field}\" must be a finite number"));
         return value ?? 0;
     }
 
@@ -155,13 +154,11 @@ public static class TransformRunner
         if (value is not null)
         {
             var expected = crs.Kind switch { CrsKind.Geographic => "lat, lon, h", CrsKind.Projected => "e, n, h", _ => "x, y, z" };
-            errors.Add(new(Invariant($"/points/{index}/{field}"), $"{crs.Identifier} is a {crs.Kind.ToString().ToLowerInvariant()} CRS and takes {expected}; \"{field}\" does not fit it"));
+            errors.Add(new(InvariantText.Format($"/points/{index}/{field}"), $"{crs.Identifier} is a {crs.Kind.ToString().ToLowerInvariant()} CRS and takes {expected}; \"{field}\" does not fit it"));
         }
     }
 
     private static TransformOutcome Invalid(InputError error) => new(null, [error]);
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }
 
 /// <summary>Plausibility limits shared with the assessment's point reading.</summary>

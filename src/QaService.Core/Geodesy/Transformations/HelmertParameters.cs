@@ -1,4 +1,3 @@
-using System.Globalization;
 
 namespace QaService.Core.Geodesy.Transformations;
 
@@ -56,11 +55,9 @@ public sealed record HelmertParameters(
     public string Describe()
     {
         var convention = Convention == HelmertConvention.PositionVector ? "position vector" : "coordinate frame";
-        var text = Invariant($"{convention} convention, tx {TxMetres:0.#####} m, ty {TyMetres:0.#####} m, tz {TzMetres:0.#####} m, rx {RxArcSeconds:0.########}″, ry {RyArcSeconds:0.########}″, rz {RzArcSeconds:0.########}″, ds {ScalePpm:0.#####} ppm");
+        var text = InvariantText.Format($"{convention} convention, tx {TxMetres:0.#####} m, ty {TyMetres:0.#####} m, tz {TzMetres:0.#####} m, rx {RxArcSeconds:0.########}″, ry {RyArcSeconds:0.########}″, rz {RzArcSeconds:0.########}″, ds {ScalePpm:0.#####} ppm");
         return ReferenceEpochYear is { } t0
-            ? text + Invariant($"; rates dtx {TxRateMetresPerYear:0.#####} m/yr, dty {TyRateMetresPerYear:0.#####} m/yr, dtz {TzRateMetresPerYear:0.#####} m/yr, drx {RxRateArcSecondsPerYear:0.#########}″/yr, dry {RyRateArcSecondsPerYear:0.#########}″/yr, drz {RzRateArcSecondsPerYear:0.#########}″/yr, dds {ScaleRatePpmPerYear:0.######} ppm/yr; reference epoch {t0:0.0##}")
+            ? text + InvariantText.Format($"; rates dtx {TxRateMetresPerYear:0.#####} m/yr, dty {TyRateMetresPerYear:0.#####} m/yr, dtz {TzRateMetresPerYear:0.#####} m/yr, drx {RxRateArcSecondsPerYear:0.#########}″/yr, dry {RyRateArcSecondsPerYear:0.#########}″/yr, drz {RzRateArcSecondsPerYear:0.#########}″/yr, dds {ScaleRatePpmPerYear:0.######} ppm/yr; reference epoch {t0:0.0##}")
             : text;
     }
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }
