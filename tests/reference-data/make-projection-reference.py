@@ -37,7 +37,7 @@ def load_catalog():
             extents[f[1]] = tuple(float(x) for x in f[2:6])
         elif f[0] == "C" and f[2] == "proj":
             crss[int(f[1])] = {"name": f[3], "base": f[5], "method": int(f[6]), "unit": f[8],
-                               "axes": [a.split(":")[1] for a in f[9].split(";")], "extent": f[10]}
+                               "axes": [a.split(":") for a in f[9].split(";")], "extent": f[10]}
     return extents, crss
 
 
@@ -74,7 +74,8 @@ def main():
     rows = []
     for code in sorted(chosen):
         d = crss[code]
-        swap = d["axes"][0] == "north"  # e.g. EPSG:3034/3035 list northing first
+        # northing first: EPSG:3034/3035 ("north" axis first), UPS EPSG:32661/32761 (axis "N" first)
+        swap = d["axes"][0][1] == "north" or d["axes"][0][0] == "N"
         fwd_in = sample(rng, extents[d["extent"]], POINTS_PER_CRS, d["method"])
         res = cs2cs(d["base"], code, [f"{lat:.9f} {lon:.9f}" for lat, lon in fwd_in])
         for (lat, lon), r in zip(fwd_in, res):

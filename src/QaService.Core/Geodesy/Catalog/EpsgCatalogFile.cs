@@ -100,7 +100,7 @@ internal static class EpsgCatalogFile
         {
             int colon = axisTexts[i].IndexOf(':');
             string abbrev = axisTexts[i][..colon], direction = axisTexts[i][(colon + 1)..];
-            axes[i] = new CrsAxis(abbrev, direction, AxisUnit(kind, direction, unit), AxisField(kind, direction, i));
+            axes[i] = new CrsAxis(abbrev, direction, AxisUnit(kind, direction, unit), AxisField(kind, direction, i, abbrev));
         }
 
         return new CoordinateReferenceSystem($"EPSG:{f[1]}", f[3], kind, datum, unit, projection, HasHeightAxis: f[2] is "geog3d" or "geocen")
@@ -119,12 +119,23 @@ internal static class EpsgCatalogFile
     private static string AxisUnit(CrsKind kind, string direction, LinearUnit unit) =>
         kind == CrsKind.Geographic && direction is "north" or "east" ? "degree" : unit.Name;
 
-    /// <summary>API field of an axis: by direction where it is a plain compass direction, else by position (x then y).</summary>
-    internal static string AxisField(CrsKind kind, string direction, int index) => kind switch
+    /// <summary>
+    /// API field of an axis: by direction where it is a plain compass direction; polar grids ("South along
+    /// 90°E") by abbreviation (E/N, as EPSG:32661 lists N first), else by position (x then y).
+    /// </summary>
+    internal static string AxisField(CrsKind kind, string direction, int index, string abbreviation = "") => kind switch
     {
         CrsKind.Geographic => direction switch { "north" => "lat", "east" => "lon", _ => "h" },
         CrsKind.Geocentric => index switch { 0 => "x", 1 => "y", _ => "z" },
-        _ => direction switch { "east" => "e", "north" => "n", "up" => "h", _ => index == 0 ? "e" : "n" },
+        _ => direction switch
+        {
+            "east" => "e",
+            "north" => "n",
+            "up" => "h",
+            _ when abbreviation.StartsWith('E') => "e",
+            _ when abbreviation.StartsWith('N') => "n",
+            _ => index == 0 ? "e" : "n",
+        },
     };
 
     /// <summary>The shared unit instances for metre and the two feet (exact factors; their report names), others as read.</summary>

@@ -290,7 +290,7 @@ public static class WktCrsReader
             int open = text.LastIndexOf('('), close = text.LastIndexOf(')');
             string abbreviation = open >= 0 && close > open ? text[(open + 1)..close] : text;
             string direction = nodes[i].Word ?? "unknown";
-            string field = EpsgCatalogFile.AxisField(kind, direction, i);
+            string field = EpsgCatalogFile.AxisField(kind, direction, i, abbreviation);
             string unitName = kind == CrsKind.Geographic && field is "lat" or "lon" ? "degree" : unit.Name;
             axes.Add(new CrsAxis(abbreviation, direction, unitName, field));
         }
