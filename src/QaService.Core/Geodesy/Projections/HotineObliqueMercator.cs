@@ -46,9 +46,10 @@ public sealed class HotineObliqueMercator : IMapProjection
         double f = d + (Math.Sqrt(d2 - 1) * signPhi);
         _h = f * Math.Pow(t0, _b);
         double g = (f - (1 / f)) / 2;
-        double gamma0 = Math.Asin(sinAlpha / d);
+        double gamma0 = Math.Asin(Math.Clamp(sinAlpha / d, -1, 1));
         (_sinGamma0, _cosGamma0) = Math.SinCos(gamma0);
-        _lambda0Degrees = centreLongitudeDegrees - (Math.Asin(g * Math.Tan(gamma0)) / _b / AngleMath.RadiansPerDegree);
+        // G·tan γ₀ is exactly 1 when αc = 90° (Swiss and Hungarian grids); clamp so rounding cannot push it past 1.
+        _lambda0Degrees = centreLongitudeDegrees - (Math.Asin(Math.Clamp(g * Math.Tan(gamma0), -1, 1)) / _b / AngleMath.RadiansPerDegree);
         (_sinGammaC, _cosGammaC) = AngleMath.SinCosDegrees(rectifiedToSkewDegrees);
         double uc = Math.Abs(initialLineAzimuthDegrees) == AngleMath.QuarterTurnDegrees
             ? _a * AngleMath.LongitudeDifferenceDegrees(centreLongitudeDegrees, _lambda0Degrees) * AngleMath.RadiansPerDegree

@@ -11,7 +11,7 @@ namespace QaService.Core.Geodesy.Catalog.Wkt;
 /// projection method, parameters and unit. A WKT1 <c>TOWGS84</c> (or a WKT2 <c>BOUNDCRS</c> to WGS 84 by a
 /// Helmert method) is kept on the datum as <see cref="GeodeticDatum.HelmertToWgs84"/>.
 /// </summary>
-public static class WktCrsReader
+public static partial class WktCrsReader
 {
     /// <summary>Radians per degree, the angle unit parameters are converted to.</summary>
     private const double RadiansPerDegree = Math.PI / 180;
@@ -26,6 +26,12 @@ public static class WktCrsReader
     private const int PositionVector2D = 9606, CoordinateFrame2D = 9607, GeocentricTranslations2D = 9603,
         PositionVectorGeocentric = 1033, CoordinateFrameGeocentric = 1032, GeocentricTranslationsGeocentric = 1031,
         PositionVector3D = 1037, CoordinateFrame3D = 1038, GeocentricTranslations3D = 1035;
+
+    /// <summary>EPSG parameter "Scale difference" (dS) of the Helmert methods.</summary>
+    private const int ScaleDifferenceCode = 8611;
+
+    /// <summary>A unitless scale-difference value within this of 1 is read as the multiplier 1 + dS (|dS| of real datums is below 1e-4).</summary>
+    private const double ScaleMultiplierBand = 0.01;
 
     private static readonly string[] GeographicKeywords = ["GEOGCS", "GEOGCRS", "GEOGRAPHICCRS", "BASEGEOGCRS"];
     private static readonly string[] GeodeticKeywords = ["GEODCRS", "GEODETICCRS", "BASEGEODCRS"];
@@ -124,6 +130,8 @@ public static class WktCrsReader
         var axes = Axes(root, kind.Value, unit);
         if (axes.Any(a => a.Direction is "west" or "south"))
             return CrsResolution.Failed("CRSs with westing or southing axes are not supported yet");
+        if (kind == CrsKind.Projected && IsPseudoMercatorExtension(root))
+            return BuildPseudoMercator(root, datum, unit, axes);
 
         IMapProjection? projection = null;
         ProjectionDefinition? definition = null;
@@ -147,6 +155,38 @@ public static class WktCrsReader
             BaseCrsIdentifier = kind == CrsKind.Projected ? BaseIdentifier(geodetic) : null,
         });
     }
+
+    /// <summary>
+    /// GDAL's WKT1 for EPSG:3857 says <c>Mercator_1SP</c> and adds <c>EXTENSION["PROJ4","+proj=merc +a=6378137
+    /// +b=6378137 …"]</c>: the spherical formulas on ellipsoidal coordinates, i.e. EPSG method 1024.
+    /// </summary>
+    private static bool IsPseudoMercatorExtension(WktNode root) =>
+        root.Child("EXTENSION")?.Values.OfType<string>().LastOrDefault() is { } proj4
+        && proj4.Contains("+proj=merc", StringComparison.Ordinal)
+        && SphereInExtension().Match(proj4) is { Success: true } m && m.Groups[1].Value == m.Groups[2].Value;
+
+    private static CrsResolution BuildPseudoMercator(WktNode root, GeodeticDatum datum, LinearUnit unit, List<CrsAxis> axes)
+    {
+        double Get(string wkt1Name) => root.Children("PARAMETER").FirstOrDefault(p => WktNames.Normalise(p.Name ?? "") == wkt1Name)?.Number(0) ?? 0;
+        var values = new Dictionary<int, double>
+        {
+            [ProjectionParameterCodes.LatitudeOfNaturalOrigin] = 0,
+            [ProjectionParameterCodes.LongitudeOfNaturalOrigin] = Get("centralmeridian"),
+            [ProjectionParameterCodes.FalseEasting] = Get("falseeasting") * unit.MetresPerUnit,
+            [ProjectionParameterCodes.FalseNorthing] = Get("falsenorthing") * unit.MetresPerUnit,
+        };
+        var projection = ProjectionFactory.Create(ProjectionMethodCodes.PseudoMercator, datum.Ellipsoid, values)!;
+        var name = root.Name ?? "unnamed";
+        return CrsResolution.Found(new CoordinateReferenceSystem($"WKT:{name}", name, CrsKind.Projected, datum, unit, projection, HasHeightAxis: false)
+        {
+            Axes = axes,
+            Conversion = new ProjectionDefinition(ProjectionMethodCodes.PseudoMercator, WktNames.MethodName(ProjectionMethodCodes.PseudoMercator),
+                values.Select(p => new ProjectionParameter(p.Key, WktNames.ParameterName(p.Key), p.Value, EpsgCatalogFile.ParameterUnit(p.Key))).ToList()),
+        });
+    }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"\+a=(\S+)\s+\+b=(\S+)")]
+    private static partial System.Text.RegularExpressions.Regex SphereInExtension();
 
     private static (int Method, string MethodName, Dictionary<int, double> Values, string? Problem) Conversion(WktNode root, double angleFactor, LinearUnit unit)
     {
@@ -237,8 +277,10 @@ public static class WktCrsReader
             var p = transformation.Children("PARAMETER").FirstOrDefault(x => x.EpsgCode() == code);
             if (p?.Number(0) is not { } value)
                 return 0;
-            double factor = p.Child("ANGLEUNIT", "LENGTHUNIT", "SCALEUNIT", "UNIT")?.Number(0) ?? toUnit;
-            return value * factor / toUnit;
+            var unitNode = p.Child("ANGLEUNIT", "LENGTHUNIT", "SCALEUNIT", "UNIT");
+            if (code == ScaleDifferenceCode && unitNode is null && Math.Abs(value - 1) < ScaleMultiplierBand)
+                return (value - 1) / toUnit; // PROJ 9.1.1 writes the unitless scale difference as the multiplier 1 + dS
+            return value * (unitNode?.Number(0) ?? toUnit) / toUnit;
         }
 
         const double PartsPerMillion = 1e-6;
@@ -290,6 +332,10 @@ public static class WktCrsReader
             int open = text.LastIndexOf('('), close = text.LastIndexOf(')');
             string abbreviation = open >= 0 && close > open ? text[(open + 1)..close] : text;
             string direction = nodes[i].Word ?? "unknown";
+            if (nodes[i].Child("MERIDIAN")?.Number(0) is { } meridian)
+                direction = string.Create(CultureInfo.InvariantCulture, $"{direction} along {meridian}°"); // WKT2 polar grid axis
+            else if (nodes.Count == 2 && nodes[0].Word is { } d0 && d0 == nodes[1].Word && d0 is "north" or "south")
+                direction = $"{direction} (polar grid)"; // WKT1 writes polar grid axes as two equal directions
             string field = EpsgCatalogFile.AxisField(kind, direction, i, abbreviation);
             string unitName = kind == CrsKind.Geographic && field is "lat" or "lon" ? "degree" : unit.Name;
             axes.Add(new CrsAxis(abbreviation, direction, unitName, field));

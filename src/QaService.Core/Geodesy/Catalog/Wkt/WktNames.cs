@@ -24,6 +24,7 @@ internal static class WktNames
         ["popularvisualisationpseudomercator"] = M.PseudoMercator,
         ["obliquestereographic"] = M.ObliqueStereographic,
         ["polarstereographicvarianta"] = M.PolarStereographicA,
+        ["polarstereographic"] = M.PolarStereographicA, // WKT1: variant B when the latitude of origin is not a pole
         ["polarstereographicvariantb"] = M.PolarStereographicB,
         ["lambertazimuthalequalarea"] = M.LambertAzimuthalEqualArea,
         ["albersequalarea"] = M.AlbersEqualArea,
