@@ -1,5 +1,6 @@
 using QaService.Api;
 using QaService.Api.Assessments;
+using QaService.Api.Crs;
 using QaService.Api.Health;
 using QaService.Api.Home;
 
@@ -12,6 +13,7 @@ app.UseQaServicePipeline();
 app.MapHome();
 app.MapHealth();
 app.MapAssessments();
+app.MapCrs();
 
 await app.RunAsync();
 
