@@ -1,5 +1,6 @@
 using QaService.Api;
 using QaService.Api.Assessments;
+using QaService.Api.Crs;
 using QaService.Api.Health;
 using QaService.Api.Home;
 using QaService.Api.Transform;
@@ -14,6 +15,7 @@ app.MapHome();
 app.MapHealth();
 app.MapAssessments();
 app.MapTransform();
+app.MapCrs();
 
 await app.RunAsync();
 
