@@ -44,7 +44,7 @@ internal sealed record ScipyRadiusReference(
     public static string ScipyVersionLine() =>
         File.ReadLines(Path.Combine(RepositoryRoot(), RelativePath)).First();
 
-    private static string RepositoryRoot()
+    internal static string RepositoryRoot()
     {
         for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
         {
