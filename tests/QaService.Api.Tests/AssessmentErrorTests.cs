@@ -146,7 +146,19 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
 
     [Fact]
     public async Task Unknown_standard_is_rejected() =>
-        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "iso-9000")), "/spec/standard", "not supported yet");
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "iso-9000")), "/spec/standard", "not supported; use one of");
+
+    [Fact]
+    public async Task Confidence_out_of_range_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["confidence"] = 95)), "/spec/confidence", "between 0.5 and 0.999");
+
+    [Fact]
+    public async Task Nmas_without_map_scale_or_contour_interval_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "nmas-1947")), "/spec/mapScale", "mapScale");
+
+    [Fact]
+    public async Task Non_positive_map_scale_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => { b["spec"]!["standard"] = "nmas"; b["spec"]!["mapScale"] = 0; })), "/spec/mapScale", "denominator");
 
     [Fact]
     public async Task Non_positive_requirement_is_rejected() =>
