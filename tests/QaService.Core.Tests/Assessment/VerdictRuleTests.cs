@@ -37,9 +37,9 @@ public sealed class VerdictRuleTests
     public void A_vertical_spec_without_vertical_data_is_inconclusive() =>
         Assert.Equal(Verdict.Inconclusive, VerdictRule.Decide(new RequiredAccuracy("nssda", 1.0, 1.0), Horizontal, null, [EnoughPoints]).Verdict);
 
-    private static Standards.StandardResult Standard(bool met, bool? metAtConfidence) =>
+    private static QaService.Core.Standards.StandardResult Standard(bool met, bool? metAtConfidence) =>
         new("asprs-2023", "test", "test", 30,
-            [new Standards.StandardFigure("RMSE_H", "horizontal", 0.1, "m", 0.2, met, true, "") { UpperBound = 0.15, MetAtConfidence = metAtConfidence }], "", []);
+            [new QaService.Core.Standards.StandardFigure("RMSE_H", "horizontal", 0.1, "m", 0.2, met, true, "") { UpperBound = 0.15, MetAtConfidence = metAtConfidence }], "", []);
 
     [Fact]
     public void Point_estimate_met_but_upper_bound_not_is_inconclusive() =>
