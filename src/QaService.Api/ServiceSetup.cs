@@ -1,3 +1,4 @@
+using System.ComponentModel.DataAnnotations;
 using System.Globalization;
 using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Http.Timeouts;
@@ -30,7 +31,9 @@ internal static class ServiceSetup
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
 
+        // Read now as well (Kestrel, the rate limiter and the timeout policy are built from it), so check it now too.
         var limits = builder.Configuration.GetSection(LimitsOptions.Section).Get<LimitsOptions>() ?? new LimitsOptions();
+        Validator.ValidateObject(limits, new ValidationContext(limits), validateAllProperties: true);
         builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = limits.MaxBodyBytes);
         builder.Services.AddKeyRateLimiting(limits);
         builder.Services.AddRequestTimeouts(options => options.DefaultPolicy = new RequestTimeoutPolicy
@@ -55,7 +58,8 @@ internal static class ServiceSetup
 
         builder.Services.AddProblemDetails(options => options.CustomizeProblemDetails = context =>
         {
-            context.ProblemDetails.Extensions.TryAdd("traceId", context.HttpContext.TraceIdentifier);
+            // The correlation id (CorrelationIdMiddleware), so a caller can quote it and it is found in the logs.
+            context.ProblemDetails.Extensions["traceId"] = context.HttpContext.TraceIdentifier;
             context.ProblemDetails.Detail ??= DefaultProblemDetail.For(context.HttpContext);
         });
         builder.Services.AddOpenApi(options =>
