@@ -27,7 +27,19 @@ BODY = json.dumps({
 }).encode()
 
 
+def in_use(port):
+    try:
+        urllib.request.urlopen(f"http://127.0.0.1:{port}/", timeout=1)
+        return True
+    except urllib.error.HTTPError:
+        return True
+    except (urllib.error.URLError, ConnectionError, OSError):
+        return False
+
+
 def start(port, settings, workdir, log):
+    if in_use(port):
+        raise SystemExit(f"port {port} is in use: choose --port")
     env = dict(os.environ)
     for key, value in settings.items():
         env[key.replace(":", "__")] = value
@@ -70,7 +82,7 @@ def main():
     parser.add_argument("--threads", type=int, default=8)
     parser.add_argument("--kill-after", type=float, default=4.0, help="seconds into the burst")
     parser.add_argument("--seconds", type=float, default=20.0, help="longest burst")
-    parser.add_argument("--port", type=int, default=5191)
+    parser.add_argument("--port", type=int, default=58191, help="first of two free loopback ports")
     args = parser.parse_args()
     if not os.path.exists(DLL):
         raise SystemExit(f"{DLL} is missing: run `dotnet build -c Release src/QaService.Api` first")

@@ -15,9 +15,6 @@ namespace QaService.Api.Assessments;
 /// <summary>POST and GET of assessments (api-v1). Handlers validate and hand over; the maths is in Core.</summary>
 internal static class AssessmentsApi
 {
-    /// <summary>The tenant used while <c>Auth:Mode</c> is <c>none</c> (owner of the demo report).</summary>
-    public const string LocalTenant = Tenants.Local;
-
     public static RouteGroupBuilder MapAssessments(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/v1/assessments").WithTags("Assessments");
