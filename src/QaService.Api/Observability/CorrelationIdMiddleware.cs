@@ -19,7 +19,12 @@ internal sealed class CorrelationIdMiddleware(RequestDelegate next)
         var given = context.Request.Headers[HeaderName].ToString();
         var id = IsAcceptable(given) ? given : context.TraceIdentifier;
         context.TraceIdentifier = id;
-        context.Response.Headers[HeaderName] = id;
+        // At response start, so answers written after a Response.Clear (fault handler, timeouts) carry it too.
+        context.Response.OnStarting(() =>
+        {
+            context.Response.Headers[HeaderName] = id;
+            return Task.CompletedTask;
+        });
         using (LogContext.PushProperty("CorrelationId", id))
             await next(context);
     }

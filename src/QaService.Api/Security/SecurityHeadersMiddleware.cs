@@ -16,6 +16,17 @@ internal sealed class SecurityHeadersMiddleware(RequestDelegate next)
 
     public Task InvokeAsync(HttpContext context)
     {
+        // At response start, so answers written after a Response.Clear (fault handler, timeouts) carry them too.
+        context.Response.OnStarting(() =>
+        {
+            Apply(context);
+            return Task.CompletedTask;
+        });
+        return next(context);
+    }
+
+    private static void Apply(HttpContext context)
+    {
         var headers = context.Response.Headers;
         headers.XContentTypeOptions = "nosniff";
         headers.XFrameOptions = "DENY";
@@ -24,6 +35,5 @@ internal sealed class SecurityHeadersMiddleware(RequestDelegate next)
         headers.ContentSecurityPolicy = context.Request.Path.StartsWithSegments("/swagger") ? ExplorerPolicy : PagePolicy;
         if (context.Request.Path.StartsWithSegments("/v1"))
             headers.CacheControl = "no-store";
-        return next(context);
     }
 }

@@ -33,6 +33,7 @@ public sealed class HardeningTests(ServiceHost host) : IClassFixture<ServiceHost
         var response = await factory.CreateClient().PostJsonAsync(Requests.Minimal());
         var text = await response.Content.ReadAsStringAsync();
         await ProblemAssert.IsProblemAsync(response, HttpStatusCode.InternalServerError);
+        Assert.Equal("nosniff", response.Headers.GetValues("X-Content-Type-Options").Single());
         Assert.DoesNotContain(BrokenStore.Secret, text);
         Assert.DoesNotContain(" at ", text);
         Assert.DoesNotContain(".cs", text);
