@@ -3,7 +3,7 @@ using System.ComponentModel.DataAnnotations;
 namespace QaService.Api.Security;
 
 /// <summary>Tenants and keys (configuration section <c>Auth</c>, api-v1 "Tenants and keys").</summary>
-public sealed class AuthOptions
+public sealed class AuthOptions : IValidatableObject
 {
     public const string Section = "Auth";
 
@@ -21,10 +21,15 @@ public sealed class AuthOptions
     public string Mode { get; set; } = NoneMode;
 
     /// <summary>Secret for <c>/v1/admin/*</c>; when empty the admin paths are disabled.</summary>
-    [MinLength(MinimumAdminTokenLength, ErrorMessage = "Auth:AdminToken must be at least 32 characters")]
     public string? AdminToken { get; set; }
 
     public bool KeysRequired => string.Equals(Mode, KeysMode, StringComparison.OrdinalIgnoreCase);
 
     public bool AdminEnabled => !string.IsNullOrEmpty(AdminToken);
+
+    public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
+    {
+        if (AdminEnabled && AdminToken!.Length < MinimumAdminTokenLength)
+            yield return new ValidationResult($"Auth:AdminToken must be at least {MinimumAdminTokenLength} characters (or empty to disable the admin paths)", [nameof(AdminToken)]);
+    }
 }
