@@ -29,7 +29,7 @@ PY
 
 dotnet publish src/QaService.Api -c Release -o "$work/app" -v q -nologo >/dev/null
 (cd "$work" && ASPNETCORE_URLS="http://127.0.0.1:$PORT" Serilog__MinimumLevel__Default=Warning \
-   Storage__ConnectionString="Data Source=$work/bench.db" dotnet app/QaService.Api.dll --urls "http://127.0.0.1:$PORT" >"$work/server.log" 2>&1) &
+   Storage__ConnectionString="Data Source=$work/bench.db" exec dotnet app/QaService.Api.dll --urls "http://127.0.0.1:$PORT" >"$work/server.log" 2>&1) &
 server_pid=$!
 for _ in $(seq 1 100); do curl -sf "http://127.0.0.1:$PORT/healthz" >/dev/null && break; sleep 0.2; done
 # Warm-up: JIT and the first request's one-off costs are not what the batch is measured on.

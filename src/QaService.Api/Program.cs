@@ -3,6 +3,7 @@ using QaService.Api.Assessments;
 using QaService.Api.Crs;
 using QaService.Api.Health;
 using QaService.Api.Home;
+using QaService.Api.Security;
 using QaService.Api.Transform;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
@@ -16,6 +17,7 @@ app.MapHealth();
 app.MapAssessments();
 app.MapTransform();
 app.MapCrs();
+app.MapAdmin();
 
 await app.RunAsync();
 

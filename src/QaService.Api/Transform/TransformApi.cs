@@ -1,5 +1,8 @@
 using System.Text.Json;
+using Microsoft.Extensions.Options;
 using QaService.Api.Assessments;
+using QaService.Api.Limits;
+using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
 using QaService.Core.Geodesy.Catalog;
@@ -27,17 +30,25 @@ internal static class TransformApi
             .Produces<TransformResponseSchema>()
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
+            .ProducesProblem(StatusCodes.Status429TooManyRequests)
             .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
         return group;
     }
 
-    internal static async Task<IResult> TransformAsync(HttpRequest request, JsonBodyReader<TransformRequest> reader, CancellationToken cancellationToken)
+    internal static async Task<IResult> TransformAsync(
+        HttpRequest request, JsonBodyReader<TransformRequest> reader, IOptions<LimitsOptions> limits, QaMetrics metrics, CancellationToken cancellationToken)
     {
         var (body, problem) = await reader.ReadAsync(request, cancellationToken);
         if (problem is not null)
             return problem;
+        var pointCount = body!.Points?.Count ?? 0;
+        if (PointCap.Check(limits.Value, ("/points", pointCount)) is { } tooMany)
+            return tooMany;
         var outcome = TransformRunner.Run(body);
-        return outcome.Result is null ? InputProblems.Invalid(outcome.Errors) : new TransformJsonResult(outcome.Result);
+        if (outcome.Result is null)
+            return InputProblems.Invalid(outcome.Errors);
+        metrics.PointsTransformed(pointCount);
+        return new TransformJsonResult(outcome.Result);
     }
 
     /// <summary>Streams the response with <see cref="Utf8JsonWriter"/>: no object per point.</summary>
