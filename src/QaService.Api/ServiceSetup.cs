@@ -31,6 +31,7 @@ internal static class ServiceSetup
         builder.Services.AddSingleton(TimeProvider.System);
         builder.Services.AddSingleton<IReportStore, SqliteReportStore>();
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
+        builder.Services.AddSingleton<MultipartUploadReader>();
         builder.Services.AddHostedService<StartupTasks>();
 
         builder.Services.AddProblemDetails(options => options.CustomizeProblemDetails = context =>

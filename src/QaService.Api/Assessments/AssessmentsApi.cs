@@ -4,6 +4,7 @@ using QaService.Api.OpenApi;
 using QaService.Api.Problems;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
+using QaService.Core.Ingest;
 using QaService.Core.Reporting;
 
 namespace QaService.Api.Assessments;
@@ -21,7 +22,10 @@ internal static class AssessmentsApi
         group.MapPost("/", CreateAsync)
             .WithName("CreateAssessment")
             .WithSummary("Test fixes against marks and store the conformance report")
-            .WithDescription("Pairs each fix with a mark, computes residuals in east-north-up at the mark, the NSSDA/RMSE/CEP figures and checks, and returns the stored report.")
+            .WithDescription("Pairs each fix with a mark, computes residuals in east-north-up at the mark, the NSSDA/RMSE/CEP figures and checks, and returns the stored report. " +
+                "Takes application/json (the request with points) or multipart/form-data with parts \"options\" (the JSON request without points, plus CSV columns, lengthUnit, decimalSeparator, delimiter, rowErrors), " +
+                "\"marks\" and \"fixes\" (files: CSV with a header row, GeoJSON Point features, GPX 1.1, NMEA 0183 GGA/GST/GSA/RMC; recognised from content). " +
+                "Errors in a file row point at the part and row: /fixes/line/17/lat (CSV, GPX, NMEA: 1-based line) or /fixes/features/3/lat (GeoJSON: 0-based feature).")
             .WithMetadata(new JsonRequestBody(typeof(AssessmentRequest)))
             .Produces<AssessmentReport>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
@@ -40,20 +44,32 @@ internal static class AssessmentsApi
     internal static async Task<IResult> CreateAsync(
         HttpRequest request,
         JsonBodyReader<AssessmentRequest> reader,
+        MultipartUploadReader uploads,
         IReportStore store,
         TimeProvider clock,
         ILogger<AssessmentRequest> logger,
         CancellationToken cancellationToken)
     {
-        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
-        if (problem is not null)
-            return problem;
-
-        var outcome = RequestValidator.Validate(body);
+        ValidationOutcome outcome;
+        IngestSummary? ingest = null;
+        if (MultipartUploadReader.IsMultipart(request))
+        {
+            var (options, marks, fixes, uploadProblem) = await uploads.ReadAsync(request, cancellationToken);
+            if (uploadProblem is not null)
+                return uploadProblem;
+            (outcome, ingest) = UploadValidation.Validate(options!, marks!, fixes!);
+        }
+        else
+        {
+            var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+            if (problem is not null)
+                return problem;
+            outcome = RequestValidator.Validate(body);
+        }
         if (outcome.Assessment is null)
             return InputProblems.Invalid(outcome.Errors);
 
-        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow());
+        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
         var json = await StoreAsync(store, LocalTenant, report, cancellationToken);
         AssessmentLog.Created(logger, report.Id, report.Verdict.ToString(), report.Counts.Paired);
         return new JsonTextResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");

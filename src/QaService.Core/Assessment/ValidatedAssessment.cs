@@ -46,7 +46,8 @@ public sealed record ValidatedAssessment(
     IReadOnlyList<FramedPoint> Fixes,
     RequiredAccuracy? Spec,
     double? PairingRadiusMetres,
-    IReadOnlyDictionary<string, string> ExclusionReasonsByFixId)
+    IReadOnlyDictionary<string, string> ExclusionReasonsByFixId,
+    OccupationMode Occupations = OccupationMode.Each)
 {
     /// <summary>True when both sides carry heights that can be compared.</summary>
     public bool HasVerticalComparison =>

@@ -19,6 +19,8 @@ namespace QaService.Core.Reporting;
 /// <param name="Cautions">What the report is not, and how to use it safely.</param>
 /// <param name="Spec">The required accuracy the verdict was judged against.</param>
 /// <param name="Frames">How marks and fixes were brought into one frame.</param>
+/// <param name="Pairing">Ambiguous proximity pairings and repeat occupations (precision per mark); null when neither occurred.</param>
+/// <param name="Ingest">How uploaded files were read; null for JSON requests.</param>
 public sealed record AssessmentReport(
     string Id,
     string? Title,
@@ -32,7 +34,9 @@ public sealed record AssessmentReport(
     string Statement,
     IReadOnlyList<string> Cautions,
     SpecSummary? Spec,
-    FrameSummary Frames);
+    FrameSummary Frames,
+    PairingSummary? Pairing = null,
+    IngestSummary? Ingest = null);
 
 /// <summary>The required accuracy as judged (95 % confidence, metres) and how each figure fared.</summary>
 /// <param name="Standard">e.g. <c>nssda</c>.</param>
