@@ -3,16 +3,19 @@ using System.Text;
 namespace QaService.Core.Ingest;
 
 /// <summary>
-/// Opens a field file as text: UTF-8 by default, UTF-16/32 when a byte-order mark says so, and strict —
-/// bytes that are not valid in the encoding stop the read with the line they are on, rather than
-/// silently turning into replacement characters inside a coordinate.
+/// Opens a field file as text: UTF-8 by default, UTF-16/32 when a byte-order mark says so. Bytes that
+/// are not valid in the encoding decode to U+FFFD, which <see cref="LineSource"/> refuses with the line
+/// it is on (a decoder that throws would name only the 64 KiB block, not the line).
 /// </summary>
 public static class TextDecoding
 {
     private const int BufferBytes = 65_536;
 
+    /// <summary>What the decoders put where bytes are not valid text (Unicode REPLACEMENT CHARACTER).</summary>
+    public const char Replacement = '\uFFFD';
+
     public static StreamReader Open(Stream stream) =>
-        new(stream, new UTF8Encoding(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true),
+        new(stream, new UTF8Encoding(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: false),
             detectEncodingFromByteOrderMarks: true, BufferBytes, leaveOpen: true);
 
     internal static string NotText(long line) =>
@@ -54,6 +57,8 @@ public sealed class LineSource(TextReader reader)
                         reader.Read();
                     break;
                 }
+                if (c == TextDecoding.Replacement)
+                    throw new FieldFileException(number, TextDecoding.NotText(number));
                 if (c == '\0')
                     throw new FieldFileException(number, InvariantText.Format($"line {number} holds a NUL character: this is binary content, not a text field file"));
                 if (line.Length >= ReadLimits.MaximumLineCharacters)
