@@ -115,9 +115,9 @@ public sealed class GeoJsonFieldReader(PositionAxes axes)
                         var start = (int)reader.TokenStartIndex;
                         if (reader.TokenType != JsonTokenType.StartObject)
                         {
-                            rows.Add(FieldRow.Bad(featureIndex++, null, "a feature must be a JSON object"));
                             if (!reader.TrySkip())
                                 return (rows, consumedBefore, before, stage, false, sawFeatures);
+                            rows.Add(FieldRow.Bad(featureIndex++, null, "a feature must be a JSON object"));
                             break;
                         }
                         if (!reader.TrySkip())

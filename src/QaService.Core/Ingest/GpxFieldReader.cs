@@ -52,7 +52,8 @@ public sealed class GpxFieldReader
             }
             catch (XmlException exception)
             {
-                throw new FieldFileException(exception.LineNumber, Describe(exception));
+                var line = exception.LineNumber > 0 ? exception.LineNumber : Math.Max(1, lineInfo.LineNumber);
+                throw new FieldFileException(line, Describe(exception, line));
             }
             catch (System.Text.DecoderFallbackException)
             {
@@ -65,10 +66,10 @@ public sealed class GpxFieldReader
             throw new FieldFileException(lineInfo.LineNumber, "the file has no <gpx> element");
     }
 
-    private static string Describe(XmlException exception) =>
+    private static string Describe(XmlException exception, long line) =>
         exception.Message.Contains("DTD", StringComparison.OrdinalIgnoreCase)
-            ? InvariantText.Format($"line {exception.LineNumber}: DTDs and entity declarations are not accepted in GPX uploads")
-            : InvariantText.Format($"line {exception.LineNumber}: the GPX is not well-formed XML ({exception.Message.Split(" Line ")[0].TrimEnd('.')})");
+            ? InvariantText.Format($"line {line}: DTDs and entity declarations are not accepted in GPX uploads")
+            : InvariantText.Format($"line {line}: the GPX is not well-formed XML ({exception.Message.Split(" Line ")[0].TrimEnd('.')})");
 
     private static FieldRow ReadPoint(XmlReader xml, long line)
     {
