@@ -34,7 +34,7 @@ ls -l "$work/fixes.csv" | awk '{printf "fixes.csv: %.1f MB\n", $5 / 1e6}'
 if curl -fs "http://127.0.0.1:$port/healthz" >/dev/null 2>&1; then echo "port $port is already in use"; exit 1; fi
 dotnet publish src/QaService.Api -c Release -o "$work/app" --nologo -v quiet >/dev/null
 /usr/bin/time -v -o "$work/time.txt" dotnet "$work/app/QaService.Api.dll" --urls "http://127.0.0.1:$port" \
-  --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Serilog:MinimumLevel:Default=Warning >"$work/service.log" 2>&1 &
+  --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Limits:MaxPoints=2000000 --Serilog:MinimumLevel:Default=Warning >"$work/service.log" 2>&1 &
 timepid=$!
 for _ in $(seq 1 100); do curl -fs "http://127.0.0.1:$port/healthz" >/dev/null && break; sleep 0.2; done
 pid=$(pgrep -P "$timepid" | head -1)

@@ -1,7 +1,10 @@
 using QaService.Api;
 using QaService.Api.Assessments;
+using QaService.Api.Crs;
 using QaService.Api.Health;
 using QaService.Api.Home;
+using QaService.Api.Security;
+using QaService.Api.Transform;
 using QaService.Api.Screening;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
@@ -13,6 +16,9 @@ app.UseQaServicePipeline();
 app.MapHome();
 app.MapHealth();
 app.MapAssessments();
+app.MapTransform();
+app.MapCrs();
+app.MapAdmin();
 app.MapScreening();
 
 await app.RunAsync();

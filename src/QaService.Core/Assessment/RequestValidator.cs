@@ -1,5 +1,6 @@
 using System.Globalization;
 using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Geodesy.Vertical;
 
 namespace QaService.Core.Assessment;
 
@@ -47,9 +48,13 @@ public static class RequestValidator
         if (errors.Count > 0)
             return ValidationOutcome.Invalid(errors);
 
+        var (aligned, problem) = FrameAlignment.Align(marksFrame!, fixesFrame!, marks, fixes);
+        if (aligned is null)
+            return ValidationOutcome.Invalid([new InputError("/fixes/crs", $"{problem}; send both sides in frames the service can join")]);
+
         return ValidationOutcome.Valid(new ValidatedAssessment(
             string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim(),
-            marksFrame!, fixesFrame!, marks, fixes, spec, radius, exclusions, occupations));
+            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation, occupations));
     }
 
     private static PointSetFrame? ReadFrame(PointSet? set, string pointer, List<InputError> errors)
@@ -91,16 +96,11 @@ public static class RequestValidator
 
     private static void CheckHeightsCompatible(PointSetFrame marks, PointSetFrame fixes, List<InputError> errors)
     {
-        if (marks.Heights == HeightReference.None || fixes.Heights == HeightReference.None)
-            return;
-        var mixed = marks.Heights != fixes.Heights;
-        var differentGeoids = marks.Heights == HeightReference.Orthometric && fixes.Heights == HeightReference.Orthometric
-                              && marks.Geoid != fixes.Geoid;
-        if (mixed || differentGeoids)
+        // Mixed references are converted (h = H + N); only a geoid the service does not have stops the request.
+        foreach (var (frame, pointer) in new[] { (marks, "/marks/geoid"), (fixes, "/fixes/geoid") })
         {
-            errors.Add(new("/fixes/heights",
-                $"marks have {Describe(marks)} heights and fixes {Describe(fixes)} heights; converting between them needs geoid grids, " +
-                "which are not supported yet. Send both sides in the same height reference, or \"heights\": \"none\" on one side for a horizontal-only test"));
+            if (frame.Heights == HeightReference.Orthometric && !string.IsNullOrWhiteSpace(frame.Geoid) && GeoidModel.Find(frame.Geoid) is null)
+                errors.Add(new(pointer, $"geoid \"{frame.Geoid}\" is not known; known: {GeoidModel.KnownNames}. Send ellipsoidal heights, or \"heights\": \"none\" for a horizontal-only test"));
         }
     }
 

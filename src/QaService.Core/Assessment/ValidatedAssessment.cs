@@ -37,7 +37,8 @@ public sealed record FramedPoint(
 /// <summary>The required accuracy after validation (metres at 95 % confidence).</summary>
 public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres);
 
-/// <summary>A request that passed validation: every point is in the common frame.</summary>
+/// <summary>A request that passed validation: every point is in the marks' geodetic frame with ellipsoidal heights.</summary>
+/// <param name="FrameOperation">How the fixes were brought into the marks' frame (steps, accuracies, epoch); null when built directly in tests.</param>
 public sealed record ValidatedAssessment(
     string? Title,
     PointSetFrame MarksFrame,
@@ -47,6 +48,7 @@ public sealed record ValidatedAssessment(
     RequiredAccuracy? Spec,
     double? PairingRadiusMetres,
     IReadOnlyDictionary<string, string> ExclusionReasonsByFixId,
+    string? FrameOperation = null,
     OccupationMode Occupations = OccupationMode.Each)
 {
     /// <summary>True when both sides carry heights that can be compared.</summary>
