@@ -5,6 +5,7 @@ using QaService.Api.Health;
 using QaService.Api.Home;
 using QaService.Api.Security;
 using QaService.Api.Transform;
+using QaService.Api.Screening;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -18,6 +19,7 @@ app.MapAssessments();
 app.MapTransform();
 app.MapCrs();
 app.MapAdmin();
+app.MapScreening();
 
 await app.RunAsync();
 
