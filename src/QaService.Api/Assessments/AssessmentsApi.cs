@@ -85,23 +85,35 @@ internal static class AssessmentsApi
         var json = await StoreAsync(store, tenant.TenantId, report, cancellationToken);
         AssessmentLog.Created(logger, report.Id, report.Verdict.ToString(), report.Counts.Paired);
         metrics.AssessmentStored(VerdictText(report), report.Counts.Marks + report.Counts.Fixes);
-        return new JsonTextResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");
+        return new JsonStreamResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");
     }
 
     internal static async Task<IResult> GetAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken)
     {
-        var json = ReportIds.IsPlausible(id) ? await store.FindJsonAsync(tenant.TenantId, id, cancellationToken) : null;
+        var json = ReportIds.IsPlausible(id) ? await store.OpenJsonAsync(tenant.TenantId, id, cancellationToken) : null;
         return json is null
             ? InputProblems.Status(StatusCodes.Status404NotFound, "Assessment not found", $"there is no assessment with id \"{Shorten(id)}\"")
-            : new JsonTextResult(json, StatusCodes.Status200OK, null);
+            : new JsonStreamResult(json, StatusCodes.Status200OK, null);
     }
 
-    /// <summary>Serialises once and stores those bytes, so POST and every later GET return the same JSON.</summary>
-    internal static async Task<string> StoreAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
+    /// <summary>
+    /// Serialises once and stores those bytes, so POST and every later GET return the same JSON. Returns the
+    /// serialised bytes, positioned at their start, for the response (the caller disposes them).
+    /// </summary>
+    internal static async Task<Stream> StoreAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
     {
-        var json = JsonSerializer.Serialize(report, ReportJson.Write);
-        await store.SaveAsync(new StoredReport(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report), json), cancellationToken);
-        return json;
+        var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
+        try
+        {
+            await store.SaveAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
+            json.Position = 0;
+            return json;
+        }
+        catch
+        {
+            await json.DisposeAsync();
+            throw;
+        }
     }
 
     /// <summary>The verdict as the report's JSON spells it (<c>pass</c>, <c>fail</c>, <c>inconclusive</c>).</summary>
@@ -110,16 +122,22 @@ internal static class AssessmentsApi
     private static string Shorten(string id) => id.Length <= 64 ? id : id[..64] + "…";
 }
 
-/// <summary>Writes already-serialised JSON with a status and optional Location.</summary>
-internal sealed class JsonTextResult(string json, int statusCode, string? location) : IResult
+/// <summary>Copies already-serialised UTF-8 JSON to the response with a status and optional Location, then disposes it.</summary>
+internal sealed class JsonStreamResult(Stream json, int statusCode, string? location) : IResult
 {
-    public Task ExecuteAsync(HttpContext httpContext)
+    private const int CopyBufferBytes = 81_920;
+
+    public async Task ExecuteAsync(HttpContext httpContext)
     {
-        httpContext.Response.StatusCode = statusCode;
-        if (location is not null)
-            httpContext.Response.Headers.Location = location;
-        httpContext.Response.ContentType = "application/json; charset=utf-8";
-        return httpContext.Response.WriteAsync(json);
+        await using (json)
+        {
+            httpContext.Response.StatusCode = statusCode;
+            if (location is not null)
+                httpContext.Response.Headers.Location = location;
+            httpContext.Response.ContentType = "application/json; charset=utf-8";
+            httpContext.Response.ContentLength = json.Length - json.Position;
+            await json.CopyToAsync(httpContext.Response.Body, CopyBufferBytes, httpContext.RequestAborted);
+        }
     }
 }
 

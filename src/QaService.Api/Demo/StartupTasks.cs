@@ -30,7 +30,7 @@ internal sealed class StartupTasks(IReportStore store, IOptions<DemoOptions> dem
             throw new InvalidOperationException($"the demo request is invalid: {outcome.Errors[0].Pointer} {outcome.Errors[0].Message}");
 
         var report = AssessmentRunner.Run(outcome.Assessment, DemoOptions.ReportId, clock.GetUtcNow());
-        await AssessmentsApi.StoreAsync(store, Tenants.Local, report, cancellationToken);
+        await (await AssessmentsApi.StoreAsync(store, Tenants.Local, report, cancellationToken)).DisposeAsync();
         StartupLog.DemoStored(logger, DemoOptions.ReportId, report.Verdict.ToString());
     }
 

@@ -1,3 +1,5 @@
+using System.Text;
+
 namespace QaService.Api.Storage;
 
 /// <summary>
@@ -12,8 +14,27 @@ public interface IReportStore
     /// <summary>Stores a new report. Never overwrites: an existing id is an error.</summary>
     Task SaveAsync(StoredReport report, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// Stores a new report whose UTF-8 JSON is read from <paramref name="json"/> (from its position to its end),
+    /// so a large report never has to sit in memory as one string. Never overwrites. Stores that cannot stream
+    /// fall back to <see cref="SaveAsync(StoredReport, CancellationToken)"/>.
+    /// </summary>
+    async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
+    {
+        using var reader = new StreamReader(json, Encoding.UTF8, detectEncodingFromByteOrderMarks: false, leaveOpen: true);
+        var text = await reader.ReadToEndAsync(cancellationToken);
+        await SaveAsync(new StoredReport(header.Tenant, header.Id, header.CreatedAt, header.Title, header.Verdict, text), cancellationToken);
+    }
+
     /// <summary>The report's JSON, or null when the tenant has no report with that id.</summary>
     Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken);
+
+    /// <summary>
+    /// The report's UTF-8 JSON as a readable stream with a known <see cref="Stream.Length"/> (the caller disposes it),
+    /// or null when the tenant has no report with that id. Stores that cannot stream fall back to <see cref="FindJsonAsync"/>.
+    /// </summary>
+    async Task<Stream?> OpenJsonAsync(string tenant, string id, CancellationToken cancellationToken) =>
+        await FindJsonAsync(tenant, id, cancellationToken) is { } json ? new MemoryStream(Encoding.UTF8.GetBytes(json), writable: false) : null;
 
     /// <summary>True when the store answers a trivial query.</summary>
     Task<bool> IsReachableAsync(CancellationToken cancellationToken);
@@ -21,3 +42,6 @@ public interface IReportStore
 
 /// <summary>One report row.</summary>
 public sealed record StoredReport(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string Json);
+
+/// <summary>One report row without its JSON (which travels as a stream).</summary>
+public sealed record ReportHeader(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);

@@ -6,6 +6,8 @@ namespace QaService.Api.Storage;
 /// <summary>Reports in one SQLite file (the embedded default). WAL mode lets readers run beside a writer.</summary>
 internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IReportStore
 {
+    private const int CopyBufferBytes = 81_920;
+
     private readonly string connectionString = options.Value.EffectiveConnectionString;
 
     public async Task InitializeAsync(CancellationToken cancellationToken)
@@ -29,6 +31,34 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         await command.ExecuteNonQueryAsync(cancellationToken);
     }
 
+    /// <summary>
+    /// Streams the JSON into the row: the INSERT reserves <c>zeroblob(length)</c> and the bytes are copied in through
+    /// SQLite's incremental BLOB I/O (sqlite3_blob_open), one transaction, so the report is never one string in memory.
+    /// The column keeps TEXT affinity; such rows hold a BLOB of UTF-8 text, which every reader here accepts.
+    /// </summary>
+    public async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
+    {
+        var length = json.Length - json.Position;
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var transaction = connection.BeginTransaction(deferred: false);
+        long rowId;
+        await using (var command = connection.CreateCommand())
+        {
+            command.Transaction = transaction;
+            command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, zeroblob($length)) RETURNING rowid";
+            command.Parameters.AddWithValue("$tenant", header.Tenant);
+            command.Parameters.AddWithValue("$id", header.Id);
+            command.Parameters.AddWithValue("$created", header.CreatedAt.UtcDateTime.ToString("O"));
+            command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
+            command.Parameters.AddWithValue("$verdict", header.Verdict);
+            command.Parameters.AddWithValue("$length", length);
+            rowId = Convert.ToInt64(await command.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture);
+        }
+        await using (var blob = new SqliteBlob(connection, "reports", "json", rowId))
+            await json.CopyToAsync(blob, CopyBufferBytes, cancellationToken);
+        await transaction.CommitAsync(cancellationToken);
+    }
+
     public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)
     {
         await using var connection = await OpenAsync(cancellationToken);
@@ -36,7 +66,33 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         command.CommandText = "SELECT json FROM reports WHERE tenant = $tenant AND id = $id";
         command.Parameters.AddWithValue("$tenant", tenant);
         command.Parameters.AddWithValue("$id", id);
-        return await command.ExecuteScalarAsync(cancellationToken) as string;
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        // GetString reads TEXT and BLOB-of-UTF-8 rows alike (sqlite3_column_text).
+        return await reader.ReadAsync(cancellationToken) ? reader.GetString(0) : null;
+    }
+
+    /// <summary>Reads the JSON through incremental BLOB I/O; the stream owns its connection.</summary>
+    public async Task<Stream?> OpenJsonAsync(string tenant, string id, CancellationToken cancellationToken)
+    {
+        var connection = await OpenAsync(cancellationToken);
+        try
+        {
+            await using var command = connection.CreateCommand();
+            command.CommandText = "SELECT rowid FROM reports WHERE tenant = $tenant AND id = $id";
+            command.Parameters.AddWithValue("$tenant", tenant);
+            command.Parameters.AddWithValue("$id", id);
+            if (await command.ExecuteScalarAsync(cancellationToken) is not long rowId)
+            {
+                await connection.DisposeAsync();
+                return null;
+            }
+            return new OwningStream(new SqliteBlob(connection, "reports", "json", rowId, readOnly: true), connection);
+        }
+        catch
+        {
+            await connection.DisposeAsync();
+            throw;
+        }
     }
 
     public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)

@@ -34,7 +34,7 @@ public static class StandardConfidence
 
     public const string MethodText =
         "RMSE: chi-square interval with ν = n (vertical) or Satterthwaite's ν (horizontal), normal unbiased errors assumed; " +
-        "95th percentile: percentile bootstrap, 2,000 resamples, fixed seed; shares over a tolerance: Clopper–Pearson.";
+        "95th percentile: percentile bootstrap, 2,000 resamples, fixed seed (above 10,000 values its large-sample order-statistic limit); shares over a tolerance: Clopper–Pearson.";
 
     /// <summary>Builds the block and returns the standard with upper bounds set on its judged figures when <paramref name="judged"/>.</summary>
     public static (ConfidenceSummary Summary, StandardResult Standard) Apply(StandardResult standard, StandardInput input, double level, bool judged,

@@ -7,6 +7,13 @@ namespace QaService.Core.Statistics;
 /// interval. Monte Carlo error of each bound with 2,000 resamples is about one order-statistic step.
 /// Needs no distributional assumption, but with n &lt; 20 the 95th percentile sits on the largest one or two values
 /// and the interval is wide and ragged — read it as indicative.
+/// Cost: each resample is tallied by rank (one sort of the sample, then O(n) per resample, the same draws and so the
+/// same bounds as sorting every resample). Above <see cref="MonteCarloLimit"/> values the resampling is replaced by the
+/// large-sample limit it converges to: the bootstrap distribution of the order statistic x*₍ₖ₎ is that of
+/// Binomial(n, j/n) ≥ k (Hutson &amp; Ernst 2000, "The exact bootstrap mean and variance of an L-estimator", J. R. Stat.
+/// Soc. B 62(1):89–94, doi:10.1111/1467-9868.00221), which for large n is normal with rank spread √(np(1 − p));
+/// the bounds are the type-7 interpolated order statistics at ranks h ± z·√(np(1 − p)) (the distribution-free quantile
+/// interval, Conover 1999, Practical Nonparametric Statistics, 3rd ed., §3.2). Relative rank error O(1/√n).
 /// </summary>
 public static class BootstrapInterval
 {
@@ -15,6 +22,12 @@ public static class BootstrapInterval
 
     /// <summary>Fixed seed of the report's bootstrap (any constant; fixed so reports are reproducible).</summary>
     public const ulong DefaultSeed = 20260526;
+
+    /// <summary>
+    /// Largest sample resampled by Monte Carlo (2,000 × n draws ≈ 0.1 s at the limit on this machine); larger samples use
+    /// the order-statistic limit, whose rank error 1/√n is then below 1 %.
+    /// </summary>
+    public const int MonteCarloLimit = 10_000;
 
     /// <summary>Two-sided percentile-bootstrap interval of the type-7 <paramref name="quantile"/> of <paramref name="values"/>.</summary>
     /// <param name="values">Sample, finite, n ≥ 2, any unit (the bounds have the same unit).</param>
@@ -32,20 +45,63 @@ public static class BootstrapInterval
         if (resamples < 100)
             throw new ArgumentException($"{resamples} resamples are too few; use at least 100.", nameof(resamples));
 
-        var random = new SplitMix64(seed);
         int n = values.Length;
-        var resample = new double[n];
+        double tail = (1.0 - level) / 2.0;
+        var sorted = values.ToArray();
+        var rank = new int[n];
+        for (int i = 0; i < n; i++)
+            rank[i] = i;
+        Array.Sort(sorted, rank);
+        if (n > MonteCarloLimit)
+            return (AtRank(sorted, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, tail)),
+                AtRank(sorted, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, 1.0 - tail)));
+
+        // positionOf[i]: where values[i] sits in sorted order, so a draw of index i is tallied at its rank.
+        var positionOf = new int[n];
+        for (int r = 0; r < n; r++)
+            positionOf[rank[r]] = r;
+        double h = (n - 1) * quantile;
+        int lower = Math.Min((int)Math.Floor(h), n - 1);
+        double fraction = h - lower;
+
+        var random = new SplitMix64(seed);
+        var tally = new int[n];
         var estimates = new double[resamples];
         for (int b = 0; b < resamples; b++)
         {
+            Array.Clear(tally);
             for (int i = 0; i < n; i++)
-                resample[i] = values[random.NextIndex(n)];
-            Array.Sort(resample);
-            estimates[b] = Percentile.LinearInterpolationOfSorted(resample, quantile);
+                tally[positionOf[random.NextIndex(n)]]++;
+            estimates[b] = InterpolatedOrderStatistic(sorted, tally, lower, fraction);
         }
 
         Array.Sort(estimates);
-        double tail = (1.0 - level) / 2.0;
         return (Percentile.LinearInterpolationOfSorted(estimates, tail), Percentile.LinearInterpolationOfSorted(estimates, 1.0 - tail));
+    }
+
+    /// <summary>
+    /// Type-7 quantile of a resample given as counts per rank of <paramref name="sorted"/>: the 0-based order statistics
+    /// <paramref name="lower"/> and lower + 1 of the resample, interpolated by <paramref name="fraction"/>.
+    /// </summary>
+    private static double InterpolatedOrderStatistic(double[] sorted, int[] tally, int lower, double fraction)
+    {
+        int seen = 0, r = 0;
+        while (seen + tally[r] <= lower)
+            seen += tally[r++];
+        double atLower = sorted[r];
+        if (fraction == 0.0 || lower + 1 >= sorted.Length)
+            return atLower;
+        while (seen + tally[r] <= lower + 1)
+            seen += tally[r++];
+        return atLower + (fraction * (sorted[r] - atLower));
+    }
+
+    /// <summary>Type-7 interpolated order statistic at rank h + z·√(np(1 − p)), clamped to the sample (large-n limit).</summary>
+    private static double AtRank(double[] sorted, double quantile, double z)
+    {
+        int n = sorted.Length;
+        double position = Math.Clamp(((n - 1) * quantile) + (z * Math.Sqrt(n * quantile * (1.0 - quantile))), 0.0, n - 1);
+        int below = (int)Math.Floor(position);
+        return below >= n - 1 ? sorted[^1] : sorted[below] + ((position - below) * (sorted[below + 1] - sorted[below]));
     }
 }
