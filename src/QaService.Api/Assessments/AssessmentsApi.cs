@@ -57,35 +57,61 @@ internal static class AssessmentsApi
         ILogger<AssessmentRequest> logger,
         CancellationToken cancellationToken)
     {
-        ValidationOutcome outcome;
-        IngestSummary? ingest = null;
-        if (MultipartUploadReader.IsMultipart(request))
-        {
-            var (options, marks, fixes, uploadProblem) = await uploads.ReadAsync(request, cancellationToken);
-            if (uploadProblem is not null)
-                return uploadProblem;
-            if (PointCap.Check(limits.Value, ("/marks", marks!.Points.Count), ("/fixes", fixes!.Points.Count)) is { } tooManyRead)
-                return tooManyRead;
-            (outcome, ingest) = UploadValidation.Validate(options!, marks, fixes);
-        }
-        else
-        {
-            var (body, problem) = await reader.ReadAsync(request, cancellationToken);
-            if (problem is not null)
-                return problem;
-            var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
-            if (PointCap.Check(limits.Value, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
-                return tooMany;
-            outcome = RequestValidator.Validate(body);
-        }
-        if (outcome.Assessment is null)
+        var (outcome, ingest, problem) = MultipartUploadReader.IsMultipart(request)
+            ? await ValidateUploadAsync(request, uploads, limits.Value, cancellationToken)
+            : await ValidateJsonAsync(request, reader, limits.Value, cancellationToken);
+        if (problem is not null)
+            return problem;
+        if (outcome!.Assessment is null)
             return InputProblems.Invalid(outcome.Errors);
 
-        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
-        var json = await StoreAsync(store, tenant.TenantId, report, cancellationToken);
-        AssessmentLog.Created(logger, report.Id, report.Verdict.ToString(), report.Counts.Paired);
-        metrics.AssessmentStored(VerdictText(report), report.Counts.Marks + report.Counts.Fixes);
-        return new JsonStreamResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");
+        // Large uploads: every reference to the input and to the report is dropped as soon as it has been used (locals
+        // live across awaits in the state machine), so the points, the residuals and the JSON are never all held at once.
+        AssessmentReport? report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
+        outcome = null;
+        var header = new ReportHeader(tenant.TenantId, report.Id, report.CreatedAt, report.Title, VerdictText(report));
+        var (paired, points) = (report.Counts.Paired, report.Counts.Marks + report.Counts.Fixes);
+        var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
+        report = null;
+        try
+        {
+            await store.SaveAsync(header, json, cancellationToken);
+            json.Position = 0;
+        }
+        catch
+        {
+            await json.DisposeAsync();
+            throw;
+        }
+        AssessmentLog.Created(logger, header.Id, header.Verdict, paired);
+        metrics.AssessmentStored(header.Verdict, points);
+        return new JsonStreamResult(json, StatusCodes.Status201Created, $"/v1/assessments/{header.Id}");
+    }
+
+    /// <summary>Reads and validates a multipart upload; the parsed files are garbage once this returns.</summary>
+    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, IResult? Problem)> ValidateUploadAsync(
+        HttpRequest request, MultipartUploadReader uploads, LimitsOptions limits, CancellationToken cancellationToken)
+    {
+        var (options, marks, fixes, uploadProblem) = await uploads.ReadAsync(request, cancellationToken);
+        if (uploadProblem is not null)
+            return (null, null, uploadProblem);
+        if (PointCap.Check(limits, ("/marks", marks!.Points.Count), ("/fixes", fixes!.Points.Count)) is { } tooManyRead)
+            return (null, null, tooManyRead);
+        var (outcome, ingest) = UploadValidation.Validate(options!, marks, fixes);
+        return (outcome, ingest, null);
+    }
+
+    /// <summary>Reads and validates a JSON request.</summary>
+    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, IResult? Problem)> ValidateJsonAsync(
+        HttpRequest request, JsonBodyReader<AssessmentRequest> reader, LimitsOptions limits, CancellationToken cancellationToken)
+    {
+        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+        if (problem is not null)
+            return (null, null, problem);
+        var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
+        if (PointCap.Check(limits, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
+            return (null, null, tooMany);
+        return (RequestValidator.Validate(body), null, null);
     }
 
     internal static async Task<IResult> GetAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken)

@@ -18,7 +18,7 @@ public static class FrameAlignment
     /// <summary>Result: the points in the marks' frame (ellipsoidal heights) and the steps in words.</summary>
     public sealed record Aligned(IReadOnlyList<FramedPoint> Marks, IReadOnlyList<FramedPoint> Fixes, string Operation);
 
-    /// <summary>Plans the alignment; null with a message when no operation joins the two frames.</summary>
+    /// <summary>Plans the alignment; null with a message when no operation joins the two frames. A <see cref="List{T}"/> of fixes is updated in place.</summary>
     public static (Aligned? Result, string? Problem) Align(PointSetFrame marksFrame, PointSetFrame fixesFrame,
         IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixes)
     {
@@ -41,12 +41,13 @@ public static class FrameAlignment
             buffer.EpochYears![i] = fixesFrame.EpochDecimalYear ?? (fixes[i].Time is { } t ? DecimalYear.From(t) : double.NaN);
         }
         operation.Execute(buffer);
-        var alignedFixes = new List<FramedPoint>(fixes.Count);
-        for (var i = 0; i < fixes.Count; i++)
+        // A caller's own list is updated in place, so the fixes are not held twice (a 1,000,000-fix upload: ~120 MB each).
+        var alignedFixes = fixes as List<FramedPoint> ?? new List<FramedPoint>(fixes);
+        for (var i = 0; i < alignedFixes.Count; i++)
         {
             // A fix without height keeps the geoid-free 0 it was given (api-v1: 0 on the ellipsoid); its height is never compared.
-            var height = fixes[i].HasHeight || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
-            alignedFixes.Add(fixes[i] with { Geodetic = new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height) });
+            var height = alignedFixes[i].HasHeight || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
+            alignedFixes[i] = alignedFixes[i] with { Geodetic = new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height) };
         }
 
         var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };

@@ -40,14 +40,20 @@ public static class RequestValidator
         if (marksFrame is not null && fixesFrame is not null)
             CheckHeightsCompatible(marksFrame, fixesFrame, errors);
 
+        // The request is not used after its points are read, so a large upload's parsed columns can be collected while
+        // the fixes are aligned (the options below are read first).
+        var title = string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim();
+        var optionErrors = new List<InputError>();
+        var spec = ReadSpec(request.Spec, optionErrors);
+        var radius = ReadPairing(request.Pairing, optionErrors);
+        var occupations = OccupationModes.Read(request.Pairing?.Occupations, optionErrors);
+        var requestedExclusions = request.Exclusions;
+
         var marks = marksFrame is null ? [] : ReadPoints(request.Marks!, marksFrame, "/marks", isMark: true, errors);
         var fixes = fixesFrame is null ? [] : ReadPoints(request.Fixes!, fixesFrame, "/fixes", isMark: false, errors);
         CheckIds(marks, fixes, errors);
-
-        var spec = ReadSpec(request.Spec, errors);
-        var radius = ReadPairing(request.Pairing, errors);
-        var occupations = OccupationModes.Read(request.Pairing?.Occupations, errors);
-        var exclusions = ReadExclusions(request.Exclusions, fixes, errors);
+        errors.AddRange(optionErrors);
+        var exclusions = ReadExclusions(requestedExclusions, fixes, errors);
 
         if (errors.Count > 0)
             return ValidationOutcome.Invalid(errors);
@@ -57,7 +63,7 @@ public static class RequestValidator
             return ValidationOutcome.Invalid([new InputError("/fixes/crs", $"{problem}; send both sides in frames the service can join")]);
 
         return ValidationOutcome.Valid(new ValidatedAssessment(
-            string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim(),
+            title,
             marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation, occupations));
     }
 

@@ -46,13 +46,15 @@ public static partial class UploadValidation
             if (outcome.Assessment is null)
                 return (ValidationOutcome.Invalid(Locate(outcome.Errors, marks, fixes).Mapped), null);
         }
-        return (outcome, new IngestSummary(
-            mode,
-            Describe(marks),
-            Describe(fixes),
-            skipped.Count,
-            skipped.Take(MaximumListedRows).Select(e => new IngestProblem(e.Pointer, e.Message)).ToList()));
+        return (outcome, Summarise(mode, marks, fixes, skipped));
     }
+
+    private static IngestSummary Summarise(string mode, PartReading marks, PartReading fixes, List<InputError> skipped) => new(
+        mode,
+        Describe(marks),
+        Describe(fixes),
+        skipped.Count,
+        skipped.Take(MaximumListedRows).Select(e => new IngestProblem(e.Pointer, e.Message)).ToList());
 
     private static IngestPartSummary Describe(PartReading part) => new(
         part.Format.ToString().ToLowerInvariant() switch { "geojson" => "geojson", var f => f },
