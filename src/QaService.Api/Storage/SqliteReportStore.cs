@@ -8,7 +8,15 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
 {
     private const int CopyBufferBytes = 81_920;
 
+    /// <summary>Reports up to this size go through the group commit; larger ones stream in their own transaction.</summary>
+    private const int GroupCommitMaximumBytes = 1_048_576;
+
     private readonly string connectionString = options.Value.EffectiveConnectionString;
+
+    /// <summary>One writer at a time in this process: waiting here is cheaper than SQLite's busy-retry sleeps.</summary>
+    private readonly SemaphoreSlim writeLock = new(1, 1);
+
+    private SqliteGroupCommit? groupCommit;
 
     public async Task InitializeAsync(CancellationToken cancellationToken)
     {
@@ -39,6 +47,26 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     public async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
     {
         var length = json.Length - json.Position;
+        if (length <= GroupCommitMaximumBytes)
+        {
+            var bytes = new byte[length];
+            await json.ReadExactlyAsync(bytes, cancellationToken);
+            await LazyInitializer.EnsureInitialized(ref groupCommit, () => new SqliteGroupCommit(OpenAsync, writeLock)).SaveAsync(header, bytes);
+            return;
+        }
+        await writeLock.WaitAsync(cancellationToken);
+        try
+        {
+            await SaveStreamedAsync(header, json, length, cancellationToken);
+        }
+        finally
+        {
+            writeLock.Release();
+        }
+    }
+
+    private async Task SaveStreamedAsync(ReportHeader header, Stream json, long length, CancellationToken cancellationToken)
+    {
         await using var connection = await OpenAsync(cancellationToken);
         await using var transaction = connection.BeginTransaction(deferred: false);
         long rowId;
