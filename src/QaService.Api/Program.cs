@@ -2,6 +2,7 @@ using QaService.Api;
 using QaService.Api.Assessments;
 using QaService.Api.Health;
 using QaService.Api.Home;
+using QaService.Api.Reports;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -12,6 +13,7 @@ app.UseQaServicePipeline();
 app.MapHome();
 app.MapHealth();
 app.MapAssessments();
+app.MapReports();
 
 await app.RunAsync();
 

@@ -31,6 +31,7 @@ internal static class AssessmentsApi
         group.MapGet("/{id}", GetAsync)
             .WithName("GetAssessment")
             .WithSummary("Read a stored conformance report")
+            .AddEndpointFilter<Reports.HtmlNegotiation>()
             .Produces<AssessmentReport>()
             .ProducesProblem(StatusCodes.Status404NotFound);
 
@@ -82,6 +83,10 @@ internal static class AssessmentsApi
 /// <summary>Writes already-serialised JSON with a status and optional Location.</summary>
 internal sealed class JsonTextResult(string json, int statusCode, string? location) : IResult
 {
+    public int StatusCode => statusCode;
+
+    public string? Location => location;
+
     public Task ExecuteAsync(HttpContext httpContext)
     {
         httpContext.Response.StatusCode = statusCode;

@@ -15,9 +15,15 @@ public interface IReportStore
     /// <summary>The report's JSON, or null when the tenant has no report with that id.</summary>
     Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken);
 
+    /// <summary>The tenant's newest reports first (id, time, title, verdict; no JSON), at most <paramref name="limit"/>.</summary>
+    Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken);
+
     /// <summary>True when the store answers a trivial query.</summary>
     Task<bool> IsReachableAsync(CancellationToken cancellationToken);
 }
 
 /// <summary>One report row.</summary>
 public sealed record StoredReport(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string Json);
+
+/// <summary>One line of a report list.</summary>
+public sealed record ReportSummary(string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);
