@@ -1,8 +1,11 @@
 using QaService.Api;
 using QaService.Api.Assessments;
+using QaService.Api.Crs;
 using QaService.Api.Health;
 using QaService.Api.Home;
 using QaService.Api.Reports;
+using QaService.Api.Security;
+using QaService.Api.Transform;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -14,6 +17,9 @@ app.MapHome();
 app.MapHealth();
 app.MapAssessments();
 app.MapReports();
+app.MapTransform();
+app.MapCrs();
+app.MapAdmin();
 
 await app.RunAsync();
 

@@ -1,11 +1,16 @@
+using System.ComponentModel.DataAnnotations;
+using System.Globalization;
 using Microsoft.AspNetCore.Diagnostics;
-using Microsoft.AspNetCore.Http.Features;
+using Microsoft.AspNetCore.Http.Timeouts;
 using QaService.Api.Assessments;
 using QaService.Api.Demo;
+using QaService.Api.Limits;
+using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
+using QaService.Api.Security;
 using QaService.Api.Storage;
-using QaService.Core.Assessment;
+using OpenTelemetry.Metrics;
 using Serilog;
 using Serilog.Formatting.Compact;
 
@@ -21,21 +26,40 @@ internal static class ServiceSetup
             .Enrich.FromLogContext()
             .WriteTo.Console(new CompactJsonFormatter()));
 
-        builder.Services.AddOptions<StorageOptions>().BindConfiguration(StorageOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        builder.Services.AddReportStorage(builder.Configuration);
         builder.Services.AddOptions<LimitsOptions>().BindConfiguration(LimitsOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
 
-        var maxBodyBytes = builder.Configuration.GetValue<long?>($"{LimitsOptions.Section}:{nameof(LimitsOptions.MaxBodyBytes)}") ?? new LimitsOptions().MaxBodyBytes;
-        builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = maxBodyBytes);
+        // Read now as well (Kestrel, the rate limiter and the timeout policy are built from it), so check it now too.
+        var limits = builder.Configuration.GetSection(LimitsOptions.Section).Get<LimitsOptions>() ?? new LimitsOptions();
+        Validator.ValidateObject(limits, new ValidationContext(limits), validateAllProperties: true);
+        builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = limits.MaxBodyBytes);
+        builder.Services.AddKeyRateLimiting(limits);
+        builder.Services.AddRequestTimeouts(options => options.DefaultPolicy = new RequestTimeoutPolicy
+        {
+            Timeout = TimeSpan.FromSeconds(limits.RequestTimeoutSeconds),
+            TimeoutStatusCode = StatusCodes.Status503ServiceUnavailable,
+            WriteTimeoutResponse = context => InputProblems.Status(StatusCodes.Status503ServiceUnavailable, "Request timed out",
+                string.Create(CultureInfo.InvariantCulture, $"the request took longer than {limits.RequestTimeoutSeconds} s (Limits:RequestTimeoutSeconds); send fewer points per request")).ExecuteAsync(context),
+        });
 
         builder.Services.AddSingleton(TimeProvider.System);
-        builder.Services.AddSingleton<IReportStore, SqliteReportStore>();
+        builder.Services.AddHttpContextAccessor();
+        builder.Services.AddSingleton<ITenantContext, HttpTenantContext>();
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
+        builder.Services.AddSingleton<QaMetrics>();
         builder.Services.AddHostedService<StartupTasks>();
+        builder.Services.AddHostedService<ExposureWarning>();
+
+        builder.Services.AddOpenTelemetry().WithMetrics(metrics => metrics
+            .AddMeter(QaMetrics.MeterName, "Microsoft.AspNetCore.Hosting", "Microsoft.AspNetCore.Server.Kestrel", "Microsoft.AspNetCore.RateLimiting")
+            .AddPrometheusExporter());
 
         builder.Services.AddProblemDetails(options => options.CustomizeProblemDetails = context =>
         {
-            context.ProblemDetails.Extensions.TryAdd("traceId", context.HttpContext.TraceIdentifier);
+            // The correlation id (CorrelationIdMiddleware), so a caller can quote it and it is found in the logs.
+            context.ProblemDetails.Extensions["traceId"] = context.HttpContext.TraceIdentifier;
             context.ProblemDetails.Detail ??= DefaultProblemDetail.For(context.HttpContext);
         });
         builder.Services.AddOpenApi(options =>
@@ -56,7 +80,7 @@ internal static class ServiceSetup
     {
         app.UseExceptionHandler(handler => handler.Run(async context =>
         {
-            // Last resort: an unexpected fault still answers with a problem body, never a stack trace.
+            // Last resort: an unexpected fault still answers with a problem body, never a stack trace or a path.
             var fault = context.Features.Get<IExceptionHandlerFeature>()?.Error;
             var status = fault is BadHttpRequestException bad ? bad.StatusCode : StatusCodes.Status500InternalServerError;
             var result = status == StatusCodes.Status500InternalServerError
@@ -64,9 +88,19 @@ internal static class ServiceSetup
                 : InputProblems.Status(status, "Bad request", fault?.Message ?? "the request could not be read");
             await result.ExecuteAsync(context);
         }));
+        app.UseMiddleware<CorrelationIdMiddleware>();
+        app.UseMiddleware<SecurityHeadersMiddleware>();
         app.UseStatusCodePages();
-        app.UseSerilogRequestLogging();
+        app.UseSerilogRequestLogging(options => options.EnrichDiagnosticContext = (diagnostics, context) =>
+        {
+            if (context.Features.Get<TenantFeature>() is { } tenant)
+                diagnostics.Set("Tenant", tenant.TenantId);
+        });
+        app.UseRequestTimeouts();
+        app.UseMiddleware<TenantResolutionMiddleware>();
+        app.UseRateLimiter();
 
+        app.MapPrometheusScrapingEndpoint("/metrics");
         app.MapOpenApi();
         app.UseSwaggerUI(options =>
         {

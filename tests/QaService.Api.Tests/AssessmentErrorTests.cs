@@ -78,13 +78,19 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
         await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => Mark0(b)["e"] = 5400000.0)), "/marks/points/0/e", "zone");
 
     [Fact]
+    public async Task Metre_values_in_a_foot_state_plane_zone_are_caught() =>
+        // UTM-like metre values read as EPSG:2227 US survey feet land ~1 800 km west of California (area of use: projinfo EPSG:2227).
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["marks"]!["crs"] = "EPSG:2227")), "/marks/points/0/e", "area of use");
+
+    [Fact]
     public async Task Height_in_millimetres_is_caught() =>
         await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => Mark0(b)["h"] = 200000.0)), "/marks/points/0/h", "outside");
 
     [Theory]
     [InlineData("EPSG:2193", "not supported yet")]
     [InlineData("EPSG:99999", "not supported yet")]
-    [InlineData("PROJCS[\"NZGD2000 / New Zealand Transverse Mercator 2000\",GEOGCS[\"NZGD2000\"]]", "WKT is not supported yet")]
+    [InlineData("PROJCS[\"NZGD2000 / New Zealand Transverse Mercator 2000\",GEOGCS[\"NZGD2000\"]]", "has no DATUM")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257222101]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],UNIT[\"metre\",1]]", "not supported yet")]
     [InlineData("utm33", "not a CRS identifier")]
     [InlineData("", "required")]
     public async Task Unsupported_crs_is_a_clear_400(string crs, string fragment) =>
@@ -123,10 +129,11 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
         await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["marks"]!["heights"] = "orthometric")), "/marks/geoid", "geoid");
 
     [Fact]
-    public async Task Mixed_height_references_need_a_geoid_grid_not_supported_yet()
+    public async Task Mixed_height_references_need_a_geoid_the_service_knows()
     {
-        var body = With(b => { b["marks"]!["heights"] = "orthometric"; b["marks"]!["geoid"] = "egm96"; });
-        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(body), "/fixes/heights", "not supported yet");
+        // egm96 is built in (FrameAssessmentTests covers the conversion); any other name is a bad request.
+        var body = With(b => { b["marks"]!["heights"] = "orthometric"; b["marks"]!["geoid"] = "osgm15"; });
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(body), "/marks/geoid", "not known");
     }
 
     [Fact]
@@ -139,7 +146,19 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
 
     [Fact]
     public async Task Unknown_standard_is_rejected() =>
-        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "iso-9000")), "/spec/standard", "not supported yet");
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "iso-9000")), "/spec/standard", "not supported; use one of");
+
+    [Fact]
+    public async Task Confidence_out_of_range_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["confidence"] = 95)), "/spec/confidence", "between 0.5 and 0.999");
+
+    [Fact]
+    public async Task Nmas_without_map_scale_or_contour_interval_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => b["spec"]!["standard"] = "nmas-1947")), "/spec/mapScale", "mapScale");
+
+    [Fact]
+    public async Task Non_positive_map_scale_is_rejected() =>
+        await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => { b["spec"]!["standard"] = "nmas"; b["spec"]!["mapScale"] = 0; })), "/spec/mapScale", "denominator");
 
     [Fact]
     public async Task Non_positive_requirement_is_rejected() =>

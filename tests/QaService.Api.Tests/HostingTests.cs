@@ -33,6 +33,10 @@ public sealed class HostingTests : IClassFixture<DemoServiceHost>
         var point = request.GetProperty("properties").GetProperty("fixes").GetProperty("properties")
             .GetProperty("points").GetProperty("items").GetProperty("properties");
         Assert.Contains("degrees", point.GetProperty("lat").GetProperty("description").GetString());
+        // The standards selectable by spec.standard are listed with their editions.
+        var standard = request.GetProperty("properties").GetProperty("spec").GetProperty("properties").GetProperty("standard").GetProperty("description").GetString();
+        foreach (var expected in new[] { "\"nssda\"", "FGDC-STD-007.3-1998", "\"asprs-2023\"", "Edition 2", "\"nmas-1947\"", "1947", "\"nga-ce90\"", "CE90" })
+            Assert.Contains(expected, standard);
     }
 
     [Fact]

@@ -1,7 +1,11 @@
 using System.Text.Json;
 using Microsoft.AspNetCore.Mvc;
+using Microsoft.Extensions.Options;
+using QaService.Api.Limits;
+using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
+using QaService.Api.Security;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
 using QaService.Core.Reporting;
@@ -11,9 +15,6 @@ namespace QaService.Api.Assessments;
 /// <summary>POST and GET of assessments (api-v1). Handlers validate and hand over; the maths is in Core.</summary>
 internal static class AssessmentsApi
 {
-    /// <summary>The tenant used while <c>Auth:Mode</c> is <c>none</c>.</summary>
-    public const string LocalTenant = "local";
-
     public static RouteGroupBuilder MapAssessments(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/v1/assessments").WithTags("Assessments");
@@ -26,14 +27,17 @@ internal static class AssessmentsApi
             .Produces<AssessmentReport>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
+            .ProducesProblem(StatusCodes.Status401Unauthorized)
+            .ProducesProblem(StatusCodes.Status429TooManyRequests);
 
         group.MapGet("/{id}", GetAsync)
             .WithName("GetAssessment")
             .WithSummary("Read a stored conformance report")
             .AddEndpointFilter<Reports.HtmlNegotiation>()
             .Produces<AssessmentReport>()
-            .ProducesProblem(StatusCodes.Status404NotFound);
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status401Unauthorized);
 
         return group;
     }
@@ -42,6 +46,9 @@ internal static class AssessmentsApi
         HttpRequest request,
         JsonBodyReader<AssessmentRequest> reader,
         IReportStore store,
+        ITenantContext tenant,
+        IOptions<LimitsOptions> limits,
+        QaMetrics metrics,
         TimeProvider clock,
         ILogger<AssessmentRequest> logger,
         CancellationToken cancellationToken)
@@ -49,20 +56,24 @@ internal static class AssessmentsApi
         var (body, problem) = await reader.ReadAsync(request, cancellationToken);
         if (problem is not null)
             return problem;
+        var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
+        if (PointCap.Check(limits.Value, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
+            return tooMany;
 
         var outcome = RequestValidator.Validate(body);
         if (outcome.Assessment is null)
             return InputProblems.Invalid(outcome.Errors);
 
         var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow());
-        var json = await StoreAsync(store, LocalTenant, report, cancellationToken);
+        var json = await StoreAsync(store, tenant.TenantId, report, cancellationToken);
         AssessmentLog.Created(logger, report.Id, report.Verdict.ToString(), report.Counts.Paired);
+        metrics.AssessmentStored(VerdictText(report), pointCount.Marks + pointCount.Fixes);
         return new JsonTextResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");
     }
 
-    internal static async Task<IResult> GetAsync(string id, IReportStore store, CancellationToken cancellationToken)
+    internal static async Task<IResult> GetAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken)
     {
-        var json = ReportIds.IsPlausible(id) ? await store.FindJsonAsync(LocalTenant, id, cancellationToken) : null;
+        var json = ReportIds.IsPlausible(id) ? await store.FindJsonAsync(tenant.TenantId, id, cancellationToken) : null;
         return json is null
             ? InputProblems.Status(StatusCodes.Status404NotFound, "Assessment not found", $"there is no assessment with id \"{Shorten(id)}\"")
             : new JsonTextResult(json, StatusCodes.Status200OK, null);
@@ -72,10 +83,12 @@ internal static class AssessmentsApi
     internal static async Task<string> StoreAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
     {
         var json = JsonSerializer.Serialize(report, ReportJson.Write);
-        var verdict = JsonSerializer.Serialize(report.Verdict, ReportJson.Write).Trim('"');
-        await store.SaveAsync(new StoredReport(tenant, report.Id, report.CreatedAt, report.Title, verdict, json), cancellationToken);
+        await store.SaveAsync(new StoredReport(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report), json), cancellationToken);
         return json;
     }
+
+    /// <summary>The verdict as the report's JSON spells it (<c>pass</c>, <c>fail</c>, <c>inconclusive</c>).</summary>
+    private static string VerdictText(AssessmentReport report) => JsonSerializer.Serialize(report.Verdict, ReportJson.Write).Trim('"');
 
     private static string Shorten(string id) => id.Length <= 64 ? id : id[..64] + "…";
 }

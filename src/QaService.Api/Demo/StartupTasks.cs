@@ -1,6 +1,7 @@
 using System.Text.Json;
 using Microsoft.Extensions.Options;
 using QaService.Api.Assessments;
+using QaService.Api.Security;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
 using QaService.Core.Reporting;
@@ -18,7 +19,7 @@ internal sealed class StartupTasks(IReportStore store, IOptions<DemoOptions> dem
     public async Task StartAsync(CancellationToken cancellationToken)
     {
         await store.InitializeAsync(cancellationToken);
-        if (!demo.Value.Enabled || await store.FindJsonAsync(AssessmentsApi.LocalTenant, DemoOptions.ReportId, cancellationToken) is not null)
+        if (!demo.Value.Enabled || await store.FindJsonAsync(Tenants.Local, DemoOptions.ReportId, cancellationToken) is not null)
             return;
 
         await using var stream = typeof(StartupTasks).Assembly.GetManifestResourceStream(DemoResource)
@@ -29,7 +30,7 @@ internal sealed class StartupTasks(IReportStore store, IOptions<DemoOptions> dem
             throw new InvalidOperationException($"the demo request is invalid: {outcome.Errors[0].Pointer} {outcome.Errors[0].Message}");
 
         var report = AssessmentRunner.Run(outcome.Assessment, DemoOptions.ReportId, clock.GetUtcNow());
-        await AssessmentsApi.StoreAsync(store, AssessmentsApi.LocalTenant, report, cancellationToken);
+        await AssessmentsApi.StoreAsync(store, Tenants.Local, report, cancellationToken);
         StartupLog.DemoStored(logger, DemoOptions.ReportId, report.Verdict.ToString());
     }
 

@@ -1,6 +1,6 @@
 using System.Globalization;
 using System.Text;
-using QaService.Api.Assessments;
+using QaService.Api.Security;
 using QaService.Api.Reports;
 using QaService.Api.Storage;
 using QaService.Core.Reporting.Html;
@@ -30,21 +30,42 @@ internal static class HomePage
     public static void MapHome(this IEndpointRouteBuilder routes)
     {
         routes.MapGet("/", ShowAsync).ExcludeFromDescription();
-        routes.MapPost(UploadForm.Path, UploadForm.SubmitAsync).ExcludeFromDescription().DisableAntiforgery();
+        routes.MapPost(UploadForm.Path, (HttpContext context, EndpointDataSource endpoints) => UploadForm.SubmitAsync(context, endpoints)).ExcludeFromDescription();
     }
 
-    private static async Task<IResult> ShowAsync(IReportStore store, CancellationToken cancellationToken)
+    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, CancellationToken cancellationToken)
     {
-        var recent = await store.ListRecentAsync(AssessmentsApi.LocalTenant, RecentCount, cancellationToken);
+        // With API keys required a browser is nobody's tenant: it gets the page without a list or form.
+        var tenant = context.Features.Get<TenantFeature>();
+        var recent = tenant is null ? null : await store.ListRecentAsync(tenant.TenantId, RecentCount, cancellationToken);
         return new HtmlPage(Render(recent));
     }
 
-    internal static string Render(IReadOnlyList<ReportSummary> recent)
+    internal static string Render(IReadOnlyList<ReportSummary>? recent)
     {
         var html = new StringBuilder();
         PageShell.Open(html, "QaService — accuracy tests", "Accuracy tests of GNSS field positions", "QaService");
         html.Append("<p>Test field fixes against surveyed check points: NSSDA, RMSE and exact circular-error figures, checks, a verdict and a report to sign.</p>");
 
+        if (recent is null)
+        {
+            html.Append("<p class=\"none\">This service requires API keys: use <code>/v1/assessments</code> with <code>Authorization: Bearer &lt;key&gt;</code>.</p>");
+        }
+        else
+        {
+            AppendList(html, recent);
+            AppendForm(html);
+        }
+
+        html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
+            .Append("<li><a href=\"/swagger\">API explorer</a> and the <a href=\"/openapi/v1.json\">OpenAPI document</a></li>")
+            .Append("<li><a href=\"/v1/assessments/demo/report.html\">the demo report</a> (invented data) · <a href=\"/healthz\">/healthz</a> · <a href=\"/readyz\">/readyz</a></li></ul></section>");
+        PageShell.Close(html, "Reports are statistical accuracy tests of submitted positions, not survey certifications.");
+        return html.ToString();
+    }
+
+    private static void AppendList(StringBuilder html, IReadOnlyList<ReportSummary> recent)
+    {
         html.Append("<section aria-labelledby=\"recent-h\"><h2 id=\"recent-h\"><span class=\"num\">1</span> Recent assessments</h2>");
         if (recent.Count == 0)
         {
@@ -66,12 +87,6 @@ internal static class HomePage
         }
 
         html.Append("</section>");
-        AppendForm(html);
-        html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
-            .Append("<li><a href=\"/swagger\">API explorer</a> and the <a href=\"/openapi/v1.json\">OpenAPI document</a></li>")
-            .Append("<li><a href=\"/healthz\">/healthz</a> · <a href=\"/readyz\">/readyz</a></li></ul></section>");
-        PageShell.Close(html, "Reports are statistical accuracy tests of submitted positions, not survey certifications.");
-        return html.ToString();
     }
 
     private static void AppendForm(StringBuilder html)

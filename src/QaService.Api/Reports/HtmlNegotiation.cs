@@ -1,4 +1,5 @@
 using Microsoft.Net.Http.Headers;
+using QaService.Api.Security;
 using QaService.Api.Storage;
 
 namespace QaService.Api.Reports;
@@ -14,8 +15,8 @@ internal sealed class HtmlNegotiation : IEndpointFilter
         var http = context.HttpContext;
         if (!PrefersHtml(http.Request.Headers.Accept) || http.Request.RouteValues["id"] is not string id)
             return await next(context);
-        var store = http.RequestServices.GetRequiredService<IReportStore>();
-        return await ReportsApi.HtmlAsync(id, store, http.RequestAborted);
+        var services = http.RequestServices;
+        return await ReportsApi.HtmlAsync(id, services.GetRequiredService<IReportStore>(), services.GetRequiredService<ITenantContext>(), http.RequestAborted);
     }
 
     /// <summary>True when text/html is listed with a higher quality than application/json (RFC 9110 §12.5.1).</summary>

@@ -1,8 +1,9 @@
-using QaService.Core.Reporting.Html;
-
 namespace QaService.Api.Reports;
 
-/// <summary>An HTML response with the house security headers: nothing may load, run or frame it.</summary>
+/// <summary>
+/// An HTML page. Its Content-Security-Policy, nosniff, no-referrer and no-framing headers come from
+/// <see cref="Security.SecurityHeadersMiddleware"/> (every response); the page repeats the policy in a meta element.
+/// </summary>
 internal sealed class HtmlPage(string html, int statusCode = StatusCodes.Status200OK) : IResult
 {
     public Task ExecuteAsync(HttpContext httpContext)
@@ -10,18 +11,8 @@ internal sealed class HtmlPage(string html, int statusCode = StatusCodes.Status2
         var response = httpContext.Response;
         response.StatusCode = statusCode;
         response.ContentType = "text/html; charset=utf-8";
-        ApplySecurityHeaders(response.Headers);
+        response.Headers.CacheControl = "no-store";
         return response.WriteAsync(html);
-    }
-
-    /// <summary>CSP (scripts and every external load blocked), no MIME sniffing, no referrer, no framing.</summary>
-    public static void ApplySecurityHeaders(IHeaderDictionary headers)
-    {
-        headers.ContentSecurityPolicy = PageShell.ContentSecurityPolicyHeader;
-        headers.XContentTypeOptions = "nosniff";
-        headers.XFrameOptions = "DENY";
-        headers["Referrer-Policy"] = "no-referrer";
-        headers.CacheControl = "no-store";
     }
 }
 

@@ -10,26 +10,9 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
 
     public async Task InitializeAsync(CancellationToken cancellationToken)
     {
-        var builder = new SqliteConnectionStringBuilder(connectionString);
-        var folder = Path.GetDirectoryName(Path.GetFullPath(builder.DataSource));
-        if (!string.IsNullOrEmpty(folder) && builder.Mode != SqliteOpenMode.Memory)
-            Directory.CreateDirectory(folder);
-
+        SqliteConnections.EnsureFolder(connectionString);
         await using var connection = await OpenAsync(cancellationToken);
-        await using var command = connection.CreateCommand();
-        command.CommandText = """
-            PRAGMA journal_mode = WAL;
-            CREATE TABLE IF NOT EXISTS reports (
-                tenant     TEXT NOT NULL,
-                id         TEXT NOT NULL,
-                created_at TEXT NOT NULL,
-                title      TEXT,
-                verdict    TEXT NOT NULL,
-                json       TEXT NOT NULL,
-                PRIMARY KEY (tenant, id)
-            );
-            """;
-        await command.ExecuteNonQueryAsync(cancellationToken);
+        await SqliteSchema.MigrateAsync(connection, cancellationToken);
     }
 
     public async Task SaveAsync(StoredReport report, CancellationToken cancellationToken)
@@ -90,10 +73,5 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         }
     }
 
-    private async Task<SqliteConnection> OpenAsync(CancellationToken cancellationToken)
-    {
-        var connection = new SqliteConnection(connectionString);
-        await connection.OpenAsync(cancellationToken);
-        return connection;
-    }
+    private Task<SqliteConnection> OpenAsync(CancellationToken cancellationToken) => SqliteConnections.OpenAsync(connectionString, cancellationToken);
 }

@@ -7,12 +7,17 @@ public sealed class StorageOptions
 {
     public const string Section = "Storage";
 
-    /// <summary><c>sqlite</c> (default). <c>postgres</c> arrives with the production-readiness work.</summary>
-    [RegularExpression("^(?i:sqlite)$", ErrorMessage = "Storage:Provider must be \"sqlite\" in this version (\"postgres\" is not supported yet)")]
-    public string Provider { get; set; } = "sqlite";
+    public const string SqliteProvider = "sqlite";
+    public const string PostgresProvider = "postgres";
 
-    /// <summary>ADO.NET connection string; default: SQLite file <c>data/qaservice.db</c> under the working folder.</summary>
+    /// <summary><c>sqlite</c> (default, one instance) or <c>postgres</c> (several instances share one database).</summary>
+    [RegularExpression("^(?i:sqlite|postgres)$", ErrorMessage = "Storage:Provider must be \"sqlite\" or \"postgres\"")]
+    public string Provider { get; set; } = SqliteProvider;
+
+    /// <summary>ADO.NET connection string; default: SQLite file <c>data/qaservice.db</c> under the working folder. Required for postgres.</summary>
     public string? ConnectionString { get; set; }
+
+    public bool IsPostgres => string.Equals(Provider, PostgresProvider, StringComparison.OrdinalIgnoreCase);
 
     /// <summary>The connection string in force.</summary>
     public string EffectiveConnectionString =>

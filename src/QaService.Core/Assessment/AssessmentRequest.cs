@@ -47,11 +47,15 @@ public sealed record PointRecord(
     double? SigmaV = null,
     DateTimeOffset? Time = null);
 
-/// <summary>Required accuracy at 95 % confidence, metres.</summary>
-/// <param name="Standard">Accuracy standard; <c>nssda</c> (FGDC-STD-007.3-1998) in this version.</param>
-/// <param name="Horizontal">Required horizontal accuracy (radial, 95 %), metres.</param>
-/// <param name="Vertical">Required vertical accuracy (95 %), metres.</param>
-public sealed record AccuracySpec(string? Standard = null, double? Horizontal = null, double? Vertical = null);
+/// <summary>Required accuracy, in the measure of the selected standard (for <c>nssda</c>: 95 % confidence), metres.</summary>
+/// <param name="Standard">Accuracy standard: <c>nssda</c> (FGDC-STD-007.3-1998, default), <c>asprs-2023</c>, <c>nmas-1947</c>, <c>nga-ce90</c>.</param>
+/// <param name="Horizontal">Required horizontal accuracy, metres: nssda radial 95 %; asprs-2023 RMSE_H; nga-ce90 CE90.</param>
+/// <param name="Vertical">Required vertical accuracy, metres: nssda 95 %; asprs-2023 RMSE_V; nga-ce90 LE90.</param>
+/// <param name="Confidence">When given (e.g. 0.9), a figure passes only when its upper confidence bound meets the spec.</param>
+/// <param name="MapScale">Publication scale denominator for <c>nmas-1947</c>, e.g. 24000 for 1:24,000.</param>
+/// <param name="ContourInterval">Contour interval for <c>nmas-1947</c> vertical testing, metres.</param>
+public sealed record AccuracySpec(string? Standard = null, double? Horizontal = null, double? Vertical = null,
+    double? Confidence = null, double? MapScale = null, double? ContourInterval = null);
 
 /// <summary>Proximity pairing for fixes that name no mark.</summary>
 /// <param name="Radius">Largest horizontal distance from fix to mark, metres (default 5).</param>

@@ -35,7 +35,9 @@ public static class AssessmentRunner
 
         var context = new CheckContext(input, included, horizontal, vertical);
         var checks = DataChecks.All.Select(check => check.Evaluate(context)).ToList();
-        var (verdict, spec) = VerdictRule.Decide(input.Spec, horizontal, vertical, checks);
+        var figures = ReportFigures.Compute(input, included, horizontal, vertical, checks);
+        var (verdict, spec) = VerdictRule.Decide(input.Spec, horizontal, vertical, checks, figures.Standard);
+        var minimumPoints = AccuracyStandards.MinimumPoints(input.Spec?.Standard);
 
         return new AssessmentReport(
             id,
@@ -48,8 +50,13 @@ public static class AssessmentRunner
             residuals,
             checks,
             NssdaStatement.Compose(horizontal, vertical, input.MarksFrame.Crs.Unit),
-            ReportCautions.For(verdict, included.Count, Nssda.MinimumCheckPoints),
+            ReportCautions.For(verdict, included.Count, minimumPoints),
             spec,
-            FrameDescription.Describe(input));
+            FrameDescription.Describe(input),
+            figures.Standard,
+            figures.Confidence,
+            figures.Approximations,
+            figures.OffsetModel,
+            figures.OutlierSensitivity);
     }
 }

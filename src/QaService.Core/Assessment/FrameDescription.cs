@@ -1,4 +1,3 @@
-using System.Globalization;
 using QaService.Core.Geodesy.Catalog;
 
 namespace QaService.Core.Assessment;
@@ -10,22 +9,18 @@ public static class FrameDescription
     {
         var marks = input.MarksFrame;
         var fixes = input.FixesFrame;
-        var steps = new List<string>
-        {
-            "both sides are in the WGS 84 family, so no datum transformation was applied",
-        };
+        var steps = new List<string>();
         foreach (var (side, frame) in new[] { ("marks", marks), ("fixes", fixes) })
         {
             if (frame.Crs.Kind == CrsKind.Projected)
-                steps.Add($"{side}: inverse Transverse Mercator ({frame.Crs.Name}; Krüger series to 6th order, Karney 2011) to latitude/longitude");
+                steps.Add($"{side}: inverse {frame.Crs.Projection!.MethodName} ({frame.Crs.Name}) to latitude/longitude");
             if (frame.Crs.Kind == CrsKind.Geocentric)
                 steps.Add($"{side}: geocentric X/Y/Z to latitude/longitude/height");
         }
+        steps.Add(input.FrameOperation ?? "fixes are in the marks' frame: no transformation");
         steps.Add("residuals: fix − mark as geocentric vectors, rotated into east-north-up at each mark (EPSG Guidance Note 7-2 §4.1.2)");
-        if (marks.EpochDecimalYear is { } me && fixes.EpochDecimalYear is { } fe && Math.Abs(me - fe) > 0)
-            steps.Add(string.Create(CultureInfo.InvariantCulture, $"epochs {me:F2} (marks) and {fe:F2} (fixes) differ; no plate motion was applied within the WGS 84 ensemble (about 2 m ensemble accuracy)"));
         if (marks.Heights == HeightReference.Orthometric && fixes.Heights == HeightReference.Orthometric)
-            steps.Add($"heights: both orthometric on {marks.Geoid}, compared directly (the geoid cancels between a fix and its mark)");
+            steps.Add($"heights: both orthometric on {marks.Geoid}, both turned into ellipsoidal heights with it (the geoid cancels between a fix and its mark)");
 
         return new Reporting.FrameSummary(
             $"{marks.Crs.Identifier} ({marks.Crs.Name})",

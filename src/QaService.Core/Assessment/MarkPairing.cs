@@ -54,7 +54,7 @@ public static class MarkPairing
             var mark = assessment.Marks[i];
             var fixAtMarkHeight = fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
             var enu = LocalTangentPlane.Difference(markGeocentric[i], mark.Geodetic,
-                GeocentricConversion.ToGeocentric(fixAtMarkHeight, Ellipsoid.Wgs84));
+                GeocentricConversion.ToGeocentric(fixAtMarkHeight, assessment.MarksFrame.Crs.Ellipsoid));
             var distance = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
             if (distance <= radiusMetres && distance < bestDistance)
             {

@@ -17,17 +17,18 @@ internal static class PointConversion
     internal const double MaximumHeightMetres = 100_000.0;
 
     /// <summary>
-    /// Largest |easting − false easting| accepted for Transverse Mercator input, metres. About 18° of
-    /// longitude from the central meridian at the equator; the Krüger series stays at the nanometre
-    /// level to 3 900 km (Karney 2011), so this is a plausibility bound, not an accuracy bound.
+    /// Farthest a projected point may lie outside its CRS's EPSG area of use, degrees of arc (common
+    /// practice: UTM data often spill a zone or half a zone into the neighbour, 3–6°; beyond this a
+    /// wrong zone, unit or swapped axes is far likelier than real data).
     /// </summary>
-    internal const double MaximumTransverseMercatorOffsetMetres = 2_000_000.0;
+    internal const double MaximumDegreesOutsideAreaOfUse = 5.0;
 
     /// <summary>
-    /// Largest |northing − false northing| accepted, metres: the pole's distance from the equator on the
-    /// WGS 84 ellipsoid (10 001 966 m, the meridian quadrant; Karney 2011 gives the formula) with margin.
+    /// Largest forward(inverse(e, n)) − (e, n) accepted, metres: the methods agree with PROJ to micrometres
+    /// (DEVELOPERS.md), so a larger round-trip gap means the grid point is outside the part of the plane the
+    /// projection maps one-to-one (e.g. a Transverse Mercator easting mirrored past 90° from the central meridian).
     /// </summary>
-    internal const double MaximumTransverseMercatorNorthingMetres = 10_010_000.0;
+    internal const double RoundTripToleranceMetres = 0.001;
 
     private static readonly string[] GeographicFields = ["lat", "lon"];
     private static readonly string[] ProjectedFields = ["e", "n"];
@@ -78,29 +79,47 @@ internal static class PointConversion
         var projection = crs.Projection!;
         var eastingMetres = p.E!.Value * crs.Unit.MetresPerUnit;
         var northingMetres = p.N!.Value * crs.Unit.MetresPerUnit;
-        var (falseEasting, falseNorthing) = projection is TransverseMercator tm ? (tm.FalseEastingMetres, tm.FalseNorthingMetres) : (0.0, 0.0);
-        if (!double.IsFinite(eastingMetres) || Math.Abs(eastingMetres - falseEasting) > MaximumTransverseMercatorOffsetMetres)
+        if (!double.IsFinite(eastingMetres))
         {
-            errors.Add(new($"{pointer}/e", Invariant($"easting {p.E} is more than {MaximumTransverseMercatorOffsetMetres / 1000} km from the false easting of {crs.Identifier}: check the zone, the unit and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/e", "easting must be a finite number"));
             return null;
         }
-        if (!double.IsFinite(northingMetres) || Math.Abs(northingMetres - falseNorthing) > MaximumTransverseMercatorNorthingMetres)
+        if (!double.IsFinite(northingMetres))
         {
-            errors.Add(new($"{pointer}/n", Invariant($"northing {p.N} lies beyond the pole in {crs.Identifier}: check the zone, the hemisphere, the unit and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/n", "northing must be a finite number"));
             return null;
         }
+
         double lat, lon;
+        ProjectedCoordinate back;
         try
         {
             (lat, lon) = projection.Inverse(eastingMetres, northingMetres);
+            back = projection.Forward(lat, lon);
         }
         catch (ArgumentOutOfRangeException)
         {
             lat = lon = double.NaN;
+            back = default;
         }
-        if (!double.IsFinite(lat) || Math.Abs(lat) >= 90)
+        if (!double.IsFinite(lat) || !double.IsFinite(lon) || Math.Abs(lat) >= 90)
         {
-            errors.Add(new($"{pointer}/n", Invariant($"northing {p.N} lies beyond the pole in {crs.Identifier}: check the zone, the hemisphere and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/n", Invariant($"e {p.E}, n {p.N} lie beyond the pole or outside the projection of {crs.Identifier}: check the zone, the hemisphere, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
+            return null;
+        }
+        var eastGap = Math.Abs(back.EastingMetres - eastingMetres);
+        var northGap = Math.Abs(back.NorthingMetres - northingMetres);
+        if (!(Math.Max(eastGap, northGap) <= RoundTripToleranceMetres))
+        {
+            var field = eastGap >= northGap ? "e" : "n";
+            errors.Add(new($"{pointer}/{field}", Invariant($"e {p.E}, n {p.N} lie outside the part of the plane that {crs.Identifier} maps one-to-one (too far from its origin; for UTM the easting is far outside the zone): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
+            return null;
+        }
+        if (crs.AreaOfUse is { } area && area.DegreesOutside(lat, lon) is var outside && outside > MaximumDegreesOutsideAreaOfUse)
+        {
+            var latitudeOutside = lat < area.SouthDegrees ? area.SouthDegrees - lat : lat > area.NorthDegrees ? lat - area.NorthDegrees : 0;
+            var field = latitudeOutside >= outside ? "n" : "e";
+            errors.Add(new($"{pointer}/{field}", Invariant($"e {p.E}, n {p.N} fall at lat {lat:F3}, lon {lon:F3}, {outside:F1}° outside the area of use of {crs.Identifier} ({area.Name}): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
             return null;
         }
         return new GeodeticCoordinate(lat, lon, heightMetres);

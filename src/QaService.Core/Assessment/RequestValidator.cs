@@ -1,5 +1,7 @@
 using System.Globalization;
 using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Geodesy.Vertical;
+using QaService.Core.Standards;
 
 namespace QaService.Core.Assessment;
 
@@ -20,6 +22,9 @@ public static class RequestValidator
 
     /// <summary>Longest id or title accepted, characters.</summary>
     public const int MaximumTextLength = 200;
+
+    /// <summary>Range accepted for spec.confidence (a one-sided level; below 0.5 a "bound" is below the estimate).</summary>
+    public const double MinimumConfidence = 0.5, MaximumConfidence = 0.999;
 
     public static ValidationOutcome Validate(AssessmentRequest? request)
     {
@@ -46,9 +51,13 @@ public static class RequestValidator
         if (errors.Count > 0)
             return ValidationOutcome.Invalid(errors);
 
+        var (aligned, problem) = FrameAlignment.Align(marksFrame!, fixesFrame!, marks, fixes);
+        if (aligned is null)
+            return ValidationOutcome.Invalid([new InputError("/fixes/crs", $"{problem}; send both sides in frames the service can join")]);
+
         return ValidationOutcome.Valid(new ValidatedAssessment(
             string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim(),
-            marksFrame!, fixesFrame!, marks, fixes, spec, radius, exclusions));
+            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation));
     }
 
     private static PointSetFrame? ReadFrame(PointSet? set, string pointer, List<InputError> errors)
@@ -90,16 +99,11 @@ public static class RequestValidator
 
     private static void CheckHeightsCompatible(PointSetFrame marks, PointSetFrame fixes, List<InputError> errors)
     {
-        if (marks.Heights == HeightReference.None || fixes.Heights == HeightReference.None)
-            return;
-        var mixed = marks.Heights != fixes.Heights;
-        var differentGeoids = marks.Heights == HeightReference.Orthometric && fixes.Heights == HeightReference.Orthometric
-                              && marks.Geoid != fixes.Geoid;
-        if (mixed || differentGeoids)
+        // Mixed references are converted (h = H + N); only a geoid the service does not have stops the request.
+        foreach (var (frame, pointer) in new[] { (marks, "/marks/geoid"), (fixes, "/fixes/geoid") })
         {
-            errors.Add(new("/fixes/heights",
-                $"marks have {Describe(marks)} heights and fixes {Describe(fixes)} heights; converting between them needs geoid grids, " +
-                "which are not supported yet. Send both sides in the same height reference, or \"heights\": \"none\" on one side for a horizontal-only test"));
+            if (frame.Heights == HeightReference.Orthometric && !string.IsNullOrWhiteSpace(frame.Geoid) && GeoidModel.Find(frame.Geoid) is null)
+                errors.Add(new(pointer, $"geoid \"{frame.Geoid}\" is not known; known: {GeoidModel.KnownNames}. Send ellipsoidal heights, or \"heights\": \"none\" for a horizontal-only test"));
         }
     }
 
@@ -175,12 +179,23 @@ public static class RequestValidator
     {
         if (spec is null)
             return null;
-        var standard = spec.Standard?.Trim().ToLowerInvariant() ?? "nssda";
-        if (standard != "nssda")
-            errors.Add(new("/spec/standard", $"standard \"{spec.Standard}\" is not supported yet; use \"nssda\" (FGDC-STD-007.3-1998)"));
+        var requested = spec.Standard?.Trim() ?? AccuracyStandards.NssdaId;
+        if (!AccuracyStandards.Aliases.TryGetValue(requested, out var standard))
+        {
+            errors.Add(new("/spec/standard", $"standard \"{spec.Standard}\" is not supported; use one of {AccuracyStandards.Summary}"));
+            standard = AccuracyStandards.NssdaId;
+        }
         CheckRequirement(spec.Horizontal, "/spec/horizontal", errors);
         CheckRequirement(spec.Vertical, "/spec/vertical", errors);
-        return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical);
+        if (spec.Confidence is { } c && !(c >= MinimumConfidence && c <= MaximumConfidence))
+            errors.Add(new("/spec/confidence", Invariant($"confidence {c} must be a level between {MinimumConfidence} and {MaximumConfidence}, e.g. 0.9")));
+        if (spec.MapScale is { } scale && !(double.IsFinite(scale) && scale >= 1))
+            errors.Add(new("/spec/mapScale", Invariant($"map scale {scale} must be the scale denominator, a number ≥ 1 (24000 for 1:24,000)")));
+        if (spec.ContourInterval is { } ci && !(double.IsFinite(ci) && ci > 0))
+            errors.Add(new("/spec/contourInterval", Invariant($"contour interval {ci} must be a positive number of metres")));
+        if (standard == AccuracyStandards.NmasId && spec.MapScale is null && spec.ContourInterval is null)
+            errors.Add(new("/spec/mapScale", "nmas-1947 judges against the map: give \"mapScale\" (e.g. 24000) and/or \"contourInterval\" (metres)"));
+        return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical, spec.Confidence, spec.MapScale, spec.ContourInterval);
     }
 
     private static void CheckRequirement(double? metres, string pointer, List<InputError> errors)

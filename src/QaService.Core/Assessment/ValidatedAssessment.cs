@@ -34,10 +34,16 @@ public sealed record FramedPoint(
     double? SigmaVerticalMetres,
     DateTimeOffset? Time);
 
-/// <summary>The required accuracy after validation (metres at 95 % confidence).</summary>
-public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres);
+/// <summary>The required accuracy after validation (metres, in the measure of <paramref name="Standard"/>).</summary>
+/// <param name="Standard">Canonical standard id (<see cref="Standards.AccuracyStandards"/>).</param>
+/// <param name="Confidence">Confidence level the verdict is judged at; null to judge point estimates.</param>
+/// <param name="MapScaleDenominator">NMAS publication scale denominator.</param>
+/// <param name="ContourIntervalMetres">NMAS contour interval, metres.</param>
+public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres,
+    double? Confidence = null, double? MapScaleDenominator = null, double? ContourIntervalMetres = null);
 
-/// <summary>A request that passed validation: every point is in the common frame.</summary>
+/// <summary>A request that passed validation: every point is in the marks' geodetic frame with ellipsoidal heights.</summary>
+/// <param name="FrameOperation">How the fixes were brought into the marks' frame (steps, accuracies, epoch); null when built directly in tests.</param>
 public sealed record ValidatedAssessment(
     string? Title,
     PointSetFrame MarksFrame,
@@ -46,7 +52,8 @@ public sealed record ValidatedAssessment(
     IReadOnlyList<FramedPoint> Fixes,
     RequiredAccuracy? Spec,
     double? PairingRadiusMetres,
-    IReadOnlyDictionary<string, string> ExclusionReasonsByFixId)
+    IReadOnlyDictionary<string, string> ExclusionReasonsByFixId,
+    string? FrameOperation = null)
 {
     /// <summary>True when both sides carry heights that can be compared.</summary>
     public bool HasVerticalComparison =>

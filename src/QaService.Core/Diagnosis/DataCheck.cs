@@ -15,7 +15,7 @@ public sealed record CheckContext(
 /// <summary>One diagnosis of the data. A check never throws for odd data: it reports it.</summary>
 public interface IDataCheck
 {
-    /// <summary>Stable id as listed in api-v1 "Check ids".</summary>
+    /// <summary>Stable id as listed in api-v1 "Check ids" (plus the service's own: <c>datum-mismatch</c>, <c>units</c>).</summary>
     string Id { get; }
 
     CheckResult Evaluate(CheckContext context);
@@ -29,6 +29,8 @@ public static class DataChecks
         new MinPointsCheck(),
         new DistributionCheck(),
         new BiasCheck(),
+        new DatumMismatchCheck(),
+        new UnitsCheck(),
         new OutlierCheck(),
         new HeightReferenceCheck(),
         new ReferenceAccuracyCheck(),

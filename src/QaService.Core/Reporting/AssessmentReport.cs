@@ -19,6 +19,11 @@ namespace QaService.Core.Reporting;
 /// <param name="Cautions">What the report is not, and how to use it safely.</param>
 /// <param name="Spec">The required accuracy the verdict was judged against.</param>
 /// <param name="Frames">How marks and fixes were brought into one frame.</param>
+/// <param name="Standard">The selected standard's own figures and statement (spec.standard; nssda when no spec).</param>
+/// <param name="Confidence">Confidence intervals, bootstrap bounds and sample-size advice.</param>
+/// <param name="Approximations">Rules of thumb beside the exact horizontal radii, each with its validity range.</param>
+/// <param name="OffsetModel">Radii about the mark predicted with the observed mean offset (noncentral case).</param>
+/// <param name="OutlierSensitivity">Figures with and without the fixes the outlier check flags (never dropped silently).</param>
 public sealed record AssessmentReport(
     string Id,
     string? Title,
@@ -32,7 +37,26 @@ public sealed record AssessmentReport(
     string Statement,
     IReadOnlyList<string> Cautions,
     SpecSummary? Spec,
-    FrameSummary Frames);
+    FrameSummary Frames,
+    Standards.StandardResult? Standard = null,
+    Standards.ConfidenceSummary? Confidence = null,
+    IReadOnlyList<Approximation>? Approximations = null,
+    OffsetRadii? OffsetModel = null,
+    OutlierSensitivity? OutlierSensitivity = null);
+
+/// <summary>
+/// The headline figures with and without the residuals the outlier check flags, so a blunder's weight is visible and
+/// nothing is dropped silently: the report's own figures always include them unless the request excludes them.
+/// </summary>
+/// <param name="Flagged">Fix ids flagged by the <c>outliers</c> check.</param>
+/// <param name="RmseRWith">rmseR with every included residual, m.</param>
+/// <param name="RmseRWithout">rmseR without the flagged fixes, m; null when nothing would remain.</param>
+/// <param name="Nssda95With">Horizontal nssda95 with them, m.</param>
+/// <param name="Nssda95Without">Horizontal nssda95 without them, m.</param>
+/// <param name="VerticalRmseWith">Vertical rmse with them, m; null without heights.</param>
+/// <param name="VerticalRmseWithout">Vertical rmse without them, m.</param>
+public sealed record OutlierSensitivity(IReadOnlyList<string> Flagged, double RmseRWith, double? RmseRWithout, double Nssda95With, double? Nssda95Without,
+    double? VerticalRmseWith, double? VerticalRmseWithout);
 
 /// <summary>The required accuracy as judged (95 % confidence, metres) and how each figure fared.</summary>
 /// <param name="Standard">e.g. <c>nssda</c>.</param>
@@ -40,7 +64,12 @@ public sealed record AssessmentReport(
 /// <param name="Vertical">Required vertical accuracy, metres.</param>
 /// <param name="HorizontalMet">Whether the tested horizontal nssda95 is within it; null when not judged.</param>
 /// <param name="VerticalMet">Whether the tested vertical nssda95 is within it; null when not judged.</param>
-public sealed record SpecSummary(string Standard, double? Horizontal, double? Vertical, bool? HorizontalMet, bool? VerticalMet);
+/// <param name="Confidence">spec.confidence when given.</param>
+/// <param name="HorizontalMetAtConfidence">Whether the upper confidence bound of the judged horizontal figure meets it; null when not judged at a confidence.</param>
+/// <param name="VerticalMetAtConfidence">Likewise vertical.</param>
+/// <remarks>For a standard other than nssda, HorizontalMet/VerticalMet judge that standard's own figures (see <c>standard</c>).</remarks>
+public sealed record SpecSummary(string Standard, double? Horizontal, double? Vertical, bool? HorizontalMet, bool? VerticalMet,
+    double? Confidence = null, bool? HorizontalMetAtConfidence = null, bool? VerticalMetAtConfidence = null);
 
 /// <summary>The frames of both sides and the operation that joined them.</summary>
 /// <param name="Marks">Marks' CRS identifier and name.</param>

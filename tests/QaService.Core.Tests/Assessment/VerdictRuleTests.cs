@@ -36,4 +36,21 @@ public sealed class VerdictRuleTests
     [Fact]
     public void A_vertical_spec_without_vertical_data_is_inconclusive() =>
         Assert.Equal(Verdict.Inconclusive, VerdictRule.Decide(new RequiredAccuracy("nssda", 1.0, 1.0), Horizontal, null, [EnoughPoints]).Verdict);
+
+    private static QaService.Core.Standards.StandardResult Standard(bool met, bool? metAtConfidence) =>
+        new("asprs-2023", "test", "test", 30,
+            [new QaService.Core.Standards.StandardFigure("RMSE_H", "horizontal", 0.1, "m", 0.2, met, true, "") { UpperBound = 0.15, MetAtConfidence = metAtConfidence }], "", []);
+
+    [Fact]
+    public void Point_estimate_met_but_upper_bound_not_is_inconclusive() =>
+        // Issue 5: with spec.confidence, pass only when the upper bound meets the spec; inconclusive when only the point estimate does.
+        Assert.Equal(Verdict.Inconclusive, VerdictRule.Decide(new RequiredAccuracy("asprs-2023", 0.2, null, 0.9), Horizontal, Vertical, [EnoughPoints], Standard(true, false)).Verdict);
+
+    [Fact]
+    public void Upper_bound_met_passes() =>
+        Assert.Equal(Verdict.Pass, VerdictRule.Decide(new RequiredAccuracy("asprs-2023", 0.2, null, 0.9), Horizontal, Vertical, [EnoughPoints], Standard(true, true)).Verdict);
+
+    [Fact]
+    public void Another_standard_is_judged_on_its_own_figures() =>
+        Assert.Equal(Verdict.Fail, VerdictRule.Decide(new RequiredAccuracy("asprs-2023", 0.2, null), Horizontal, Vertical, [EnoughPoints], Standard(false, null)).Verdict);
 }

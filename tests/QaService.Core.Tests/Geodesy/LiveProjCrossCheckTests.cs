@@ -66,6 +66,34 @@ public sealed class LiveProjCrossCheckTests(ITestOutputHelper output)
         }
 
         output.WriteLine($"live cs2cs: UTM max error {maxTm:E3} m over {4 * PointsPerZone} points; ECEF max error {maxEcef:E3} m over {geo.Length} points");
+
+        // Any catalog CRS: 6 random projected CRSs, 20 points in each one's area of use, cs2cs from the base
+        // geographic CRS (same datum: projection only; authority axis order lat, lon in and the CRS's order out).
+        var projected = QaService.Core.Geodesy.Catalog.CrsCatalog.All.Where(c => c.Projection is not null).ToList();
+        double maxCatalog = 0;
+        for (int k = 0; k < 6; k++)
+        {
+            var crs = projected[rng.Next(projected.Count)];
+            var area = crs.AreaOfUse!;
+            double east = area.EastDegrees < area.WestDegrees ? area.EastDegrees + 360 : area.EastDegrees;
+            var pts = Enumerable.Range(0, 20).Select(_ => (
+                Lat: Math.Clamp(area.SouthDegrees + (rng.NextDouble() * (area.NorthDegrees - area.SouthDegrees)), -85, 85),
+                Lon: Math.IEEERemainder(area.WestDegrees + (rng.NextDouble() * (east - area.WestDegrees)), 360))).ToArray();
+            string[] lines = Run(cs2cs, ["-f", "%.7f", crs.BaseCrsIdentifier!, crs.Identifier], pts.Select(p => F(p.Lat) + " " + F(p.Lon)));
+            bool northFirst = crs.Axes[0].Field == "n";
+            for (int i = 0; i < pts.Length; i++)
+            {
+                string[] f = lines[i].Split((char[])[' ', '\t'], StringSplitOptions.RemoveEmptyEntries);
+                double e = Parse(f[northFirst ? 1 : 0]) * crs.Unit.MetresPerUnit, n = Parse(f[northFirst ? 0 : 1]) * crs.Unit.MetresPerUnit;
+                ProjectedCoordinate en = crs.Projection!.Forward(pts[i].Lat, pts[i].Lon);
+                double error = double.Hypot(en.EastingMetres - e, en.NorthingMetres - n);
+                maxCatalog = Math.Max(maxCatalog, error);
+                // Outside source: live PROJ cs2cs; 1 mm as in ProjectionProjReferenceTests.
+                Assert.True(error < 1e-3, $"{crs.Identifier} ({F(pts[i].Lat)}, {F(pts[i].Lon)}): {error:E3} m, seed {seed}");
+            }
+        }
+
+        output.WriteLine($"live cs2cs: 6 random catalog CRSs, max error {maxCatalog:E3} m over 120 points");
     }
 
     /// <summary>Round-trip-exact decimal text ("R" format), so cs2cs sees the same double we project.</summary>

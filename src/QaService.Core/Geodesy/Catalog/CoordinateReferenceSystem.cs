@@ -23,4 +23,16 @@ public sealed record CoordinateReferenceSystem(
 {
     /// <summary>The datum's ellipsoid.</summary>
     public Ellipsoid Ellipsoid => Datum.Ellipsoid;
+
+    /// <summary>Where the CRS is meant to be used (EPSG extent); null when unknown (e.g. WKT without an extent).</summary>
+    public AreaOfUse? AreaOfUse { get; init; }
+
+    /// <summary>The coordinate axes in the CRS's own order (EPSG: latitude before longitude for geographic CRSs).</summary>
+    public IReadOnlyList<CrsAxis> Axes { get; init; } = [];
+
+    /// <summary>Method and parameters of <see cref="Projection"/> as data; null for geographic and geocentric CRSs.</summary>
+    public ProjectionDefinition? Conversion { get; init; }
+
+    /// <summary>The geographic CRS a projected CRS is based on, e.g. <c>EPSG:4269</c>; null otherwise.</summary>
+    public string? BaseCrsIdentifier { get; init; }
 }

@@ -7,13 +7,10 @@ namespace QaService.Core.Reporting.Html;
 public static class PageShell
 {
     /// <summary>
-    /// Also sent as a response header; repeated in a meta element so a saved copy keeps the same rules.
-    /// Only inline styles, data: images and same-origin form posts are allowed; nothing is fetched.
+    /// The response header's policy (with frame-ancestors, which only a header can carry), repeated in a meta
+    /// element so a saved copy keeps the same rules: only inline styles, data: images and same-origin form posts.
     /// </summary>
-    public const string ContentSecurityPolicy = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; form-action 'self'; base-uri 'none'";
-
-    /// <summary>The same policy plus framing rules, which only a response header can carry.</summary>
-    public const string ContentSecurityPolicyHeader = ContentSecurityPolicy + "; frame-ancestors 'none'";
+    public const string ContentSecurityPolicy = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'self'";
 
     /// <summary>The brand mark: a target reticle with an offset dot (a fix beside its mark).</summary>
     private const string BrandMark =

@@ -1,0 +1,61 @@
+using Npgsql;
+
+namespace QaService.Api.Storage;
+
+/// <summary>
+/// Reports in PostgreSQL, for several stateless instances behind a load balancer. Durability: an
+/// INSERT returns only after COMMIT, and with PostgreSQL's default <c>synchronous_commit = on</c> the
+/// commit has been flushed to the WAL on disk (PostgreSQL 15 manual, §20.5.1 and §30.4), so a 201
+/// follows a durable write. Do not turn synchronous_commit off for this database.
+/// </summary>
+internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReportStore
+{
+    public Task InitializeAsync(CancellationToken cancellationToken) => PostgresSchema.MigrateAsync(dataSource, cancellationToken);
+
+    public async Task SaveAsync(StoredReport report, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand(
+            "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($1, $2, $3, $4, $5, $6)");
+        command.Parameters.Add(new NpgsqlParameter { Value = report.Tenant });
+        command.Parameters.Add(new NpgsqlParameter { Value = report.Id });
+        command.Parameters.Add(new NpgsqlParameter { Value = report.CreatedAt.ToUniversalTime() });
+        command.Parameters.Add(new NpgsqlParameter { Value = (object?)report.Title ?? DBNull.Value, NpgsqlDbType = NpgsqlTypes.NpgsqlDbType.Text });
+        command.Parameters.Add(new NpgsqlParameter { Value = report.Verdict });
+        command.Parameters.Add(new NpgsqlParameter { Value = report.Json });
+        await command.ExecuteNonQueryAsync(cancellationToken);
+    }
+
+    public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand("SELECT json FROM reports WHERE tenant = $1 AND id = $2");
+        command.Parameters.Add(new NpgsqlParameter { Value = tenant });
+        command.Parameters.Add(new NpgsqlParameter { Value = id });
+        return await command.ExecuteScalarAsync(cancellationToken) as string;
+    }
+
+    public async Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand("SELECT id, created_at, title, verdict FROM reports WHERE tenant = $1 ORDER BY created_at DESC, id LIMIT $2");
+        command.Parameters.Add(new NpgsqlParameter { Value = tenant });
+        command.Parameters.Add(new NpgsqlParameter { Value = limit });
+        var list = new List<ReportSummary>();
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken))
+            list.Add(new ReportSummary(reader.GetString(0), reader.GetFieldValue<DateTimeOffset>(1), reader.IsDBNull(2) ? null : reader.GetString(2), reader.GetString(3)));
+        return list;
+    }
+
+    public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)
+    {
+        try
+        {
+            await using var command = dataSource.CreateCommand("SELECT COUNT(*) FROM reports WHERE false");
+            await command.ExecuteScalarAsync(cancellationToken);
+            return true;
+        }
+        catch (Exception exception) when (exception is NpgsqlException or TimeoutException or InvalidOperationException)
+        {
+            return false;
+        }
+    }
+}

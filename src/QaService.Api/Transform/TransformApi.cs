@@ -1,0 +1,99 @@
+using System.Text.Json;
+using Microsoft.Extensions.Options;
+using QaService.Api.Assessments;
+using QaService.Api.Limits;
+using QaService.Api.Observability;
+using QaService.Api.OpenApi;
+using QaService.Api.Problems;
+using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Transform;
+
+namespace QaService.Api.Transform;
+
+/// <summary>POST /v1/transform (api-v1): read, hand over to Core, write. The maths is in Core.Transform and Core.Geodesy.</summary>
+internal static class TransformApi
+{
+    /// <summary>Decimal places written for degrees: 1e-10° ≈ 11 µm.</summary>
+    private const int DegreeDecimals = 10;
+
+    /// <summary>Decimal places written for metres and feet: 1e-6, a micrometre.</summary>
+    private const int LinearDecimals = 6;
+
+    public static RouteGroupBuilder MapTransform(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/v1/transform").WithTags("Transform");
+        group.MapPost("/", TransformAsync)
+            .WithName("Transform")
+            .WithSummary("Transform a batch of points between two CRSs, frames and epochs")
+            .WithDescription("Plans the operation (inverse projection, geocentric, Helmert / time-dependent Helmert at the epoch, geoid heights, projection) and returns the points in request order, fields by the target CRS kind, with the steps and their accuracy in \"operation\".")
+            .WithMetadata(new JsonRequestBody(typeof(TransformRequest)))
+            .Produces<TransformResponseSchema>()
+            .ProducesProblem(StatusCodes.Status400BadRequest)
+            .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
+            .ProducesProblem(StatusCodes.Status429TooManyRequests)
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
+        return group;
+    }
+
+    internal static async Task<IResult> TransformAsync(
+        HttpRequest request, JsonBodyReader<TransformRequest> reader, IOptions<LimitsOptions> limits, QaMetrics metrics, CancellationToken cancellationToken)
+    {
+        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+        if (problem is not null)
+            return problem;
+        var pointCount = body!.Points?.Count ?? 0;
+        if (PointCap.Check(limits.Value, ("/points", pointCount)) is { } tooMany)
+            return tooMany;
+        var outcome = TransformRunner.Run(body);
+        if (outcome.Result is null)
+            return InputProblems.Invalid(outcome.Errors);
+        metrics.PointsTransformed(pointCount);
+        return new TransformJsonResult(outcome.Result);
+    }
+
+    /// <summary>Streams the response with <see cref="Utf8JsonWriter"/>: no object per point.</summary>
+    private sealed class TransformJsonResult(TransformResult result) : IResult
+    {
+        public async Task ExecuteAsync(HttpContext httpContext)
+        {
+            httpContext.Response.StatusCode = StatusCodes.Status200OK;
+            httpContext.Response.ContentType = "application/json; charset=utf-8";
+            await using var writer = new Utf8JsonWriter(httpContext.Response.BodyWriter);
+            writer.WriteStartObject();
+            writer.WriteString("from", result.Source.Identifier);
+            writer.WriteString("to", result.Target.Identifier);
+            writer.WriteStartArray("points");
+            var p = result.Points;
+            var (first, second, third) = result.Target.Kind switch
+            {
+                CrsKind.Geographic => ("lat", "lon", "h"),
+                CrsKind.Projected => ("e", "n", "h"),
+                _ => ("x", "y", "z"),
+            };
+            var planar = result.Target.Kind == CrsKind.Geographic ? DegreeDecimals : LinearDecimals;
+            var geocentric = result.Target.Kind == CrsKind.Geocentric;
+            for (var i = 0; i < p.Count; i++)
+            {
+                writer.WriteStartObject();
+                writer.WriteNumber(first, Math.Round(p.First[i], planar));
+                writer.WriteNumber(second, Math.Round(p.Second[i], planar));
+                if (geocentric || result.HasHeight[i])
+                    writer.WriteNumber(third, Math.Round(p.Third[i], LinearDecimals));
+                writer.WriteEndObject();
+                if (writer.BytesPending > 32_768)
+                    await writer.FlushAsync(httpContext.RequestAborted);
+            }
+            writer.WriteEndArray();
+            writer.WriteString("operation", result.Operation);
+            writer.WriteNumber("accuracy", result.AccuracyMetres);
+            writer.WriteEndObject();
+            await writer.FlushAsync(httpContext.RequestAborted);
+        }
+    }
+}
+
+/// <summary>Response shape for the OpenAPI document (the handler streams the same fields).</summary>
+/// <param name="Points">Target coordinates in request order: lat/lon/h, e/n/h or x/y/z by the target CRS kind.</param>
+/// <param name="Operation">The steps, each with its parameters and accuracy, the total accuracy and the epoch used.</param>
+/// <param name="Accuracy">Sum of the steps' stated accuracies, metres.</param>
+internal sealed record TransformResponseSchema(string From, string To, IReadOnlyList<TransformPoint> Points, string Operation, double Accuracy);

@@ -1,0 +1,86 @@
+using QaService.Core.Geodesy;
+using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Geodesy.Transformations;
+using QaService.Core.Geodesy.Vertical;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>
+/// Brings the fixes into the marks' geodetic frame and both sides to ellipsoidal heights, so the residual
+/// pipeline compares like with like: orthometric heights become h = H + N on their geoid (each side in its own
+/// frame), then the fixes go through the planned datum operation (<see cref="CoordinateOperationPlanner"/>),
+/// time-dependent steps evaluated at each fix's observation epoch (the fixes' <c>epoch</c>, else the fix's
+/// <c>time</c> as a decimal year). The marks are taken as they are, at their own epoch: no velocity model moves
+/// them, and a difference between the two sides' epochs within one dynamic frame is stated, not corrected.
+/// </summary>
+public static class FrameAlignment
+{
+    /// <summary>Result: the points in the marks' frame (ellipsoidal heights) and the steps in words.</summary>
+    public sealed record Aligned(IReadOnlyList<FramedPoint> Marks, IReadOnlyList<FramedPoint> Fixes, string Operation);
+
+    /// <summary>Plans the alignment; null with a message when no operation joins the two frames.</summary>
+    public static (Aligned? Result, string? Problem) Align(PointSetFrame marksFrame, PointSetFrame fixesFrame,
+        IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixes)
+    {
+        var markGeoid = marksFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(marksFrame.Geoid) : null;
+        var fixGeoid = fixesFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(fixesFrame.Geoid) : null;
+        var plan = CoordinateOperationPlanner.Plan(AsGeographic(fixesFrame.Crs), AsGeographic(marksFrame.Crs), fixGeoid);
+        if (plan.Operation is null)
+            return (null, plan.Problem);
+        var operation = plan.Operation;
+
+        var alignedMarks = markGeoid is null ? marks : marks.Select(m => ToEllipsoidal(m, markGeoid)).ToList();
+
+        var buffer = new CoordinateBuffer(fixes.Count, withEpochs: true);
+        for (var i = 0; i < fixes.Count; i++)
+        {
+            var g = fixes[i].Geodetic;
+            buffer.First[i] = g.LatitudeDegrees;
+            buffer.Second[i] = g.LongitudeDegrees;
+            buffer.Third[i] = g.EllipsoidalHeightMetres;
+            buffer.EpochYears![i] = fixesFrame.EpochDecimalYear ?? (fixes[i].Time is { } t ? DecimalYear.From(t) : double.NaN);
+        }
+        operation.Execute(buffer);
+        var alignedFixes = new List<FramedPoint>(fixes.Count);
+        for (var i = 0; i < fixes.Count; i++)
+        {
+            // A fix without height keeps the geoid-free 0 it was given (api-v1: 0 on the ellipsoid); its height is never compared.
+            var height = fixes[i].HasHeight || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
+            alignedFixes.Add(fixes[i] with { Geodetic = new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height) });
+        }
+
+        var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };
+        if (markGeoid is not null)
+            text.Add($"marks: orthometric H to ellipsoidal h = H + N with the {markGeoid.Grid.Name} geoid (bilinear; EGM96 accuracy about {markGeoid.AccuracyMetres:0.#} m absolute, it cancels where both sides use it)");
+        if (marksFrame.EpochDecimalYear is { } me && fixesFrame.EpochDecimalYear is { } fe && me != fe && marksFrame.Crs.Datum.FrameReferenceEpochYear is not null
+            && marksFrame.Crs.Datum.Code == fixesFrame.Crs.Datum.Code)
+            text.Add(InvariantText.Format($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
+        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)), null);
+    }
+
+    /// <summary>The geographic form of a CRS, after <see cref="PointConversion"/> has already undone projection and unit.</summary>
+    private static CoordinateReferenceSystem AsGeographic(CoordinateReferenceSystem crs) =>
+        crs.Kind == CrsKind.Geographic && crs.Unit == LinearUnit.Metre
+            ? crs
+            : crs with { Kind = CrsKind.Geographic, Projection = null, Unit = LinearUnit.Metre, HasHeightAxis = true };
+
+    private static FramedPoint ToEllipsoidal(FramedPoint mark, GeoidModel geoid)
+    {
+        if (!mark.HasHeight)
+            return mark;
+        var g = mark.Geodetic;
+        return mark with { Geodetic = g with { EllipsoidalHeightMetres = g.EllipsoidalHeightMetres + geoid.Grid.UndulationMetres(g.LatitudeDegrees, g.LongitudeDegrees) } };
+    }
+
+    private static string? EpochNote(PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes)
+    {
+        if (fixesFrame.EpochDecimalYear is { } epoch)
+            return InvariantText.Format($"{epoch} (fixes' epoch)");
+        var times = fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).ToList();
+        if (times.Count == 0)
+            return null;
+        var missing = fixes.Count - times.Count;
+        return InvariantText.Format($"each fix's time as a decimal year ({times.Min():0.000}–{times.Max():0.000})") +
+               (missing > 0 ? InvariantText.Format($"; {missing} fixes without time evaluated at the reference epoch") : "");
+    }
+}
