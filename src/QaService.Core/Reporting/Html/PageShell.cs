@@ -23,6 +23,7 @@ public static class PageShell
         html.Append("<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">")
             .Append($"<meta http-equiv=\"Content-Security-Policy\" content=\"{ContentSecurityPolicy}\">")
             .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"><meta name=\"referrer\" content=\"no-referrer\">")
+            .Append("<link rel=\"icon\" href=\"data:,\">")
             .Append($"<title>{Escape(title)}</title><style>{PageStyle.Css}</style></head><body>")
             .Append("<a class=\"skip\" href=\"#main\">Skip to content</a>")
             .Append($"<header class=\"masthead\">{BrandMark}<div><p class=\"brand\">{Escape(brand)}</p><h1>{Escape(heading)}</h1></div></header>")

@@ -49,7 +49,7 @@ public static class PageStyle
         .counts dd{margin:0;font-size:1.15rem;font-weight:700;font-variant-numeric:tabular-nums}
         .small{font-size:.85rem;color:var(--muted)}
         .none{font-style:italic;color:var(--muted)}
-        .plot-grid{display:grid;grid-template-columns:repeat(auto-fit,minmax(18rem,1fr));gap:1rem}
+        .plot-grid{display:grid;grid-template-columns:repeat(auto-fit,minmax(24rem,1fr));gap:1rem}
         figure{margin:0 0 1rem;background:#fff;border:1px solid var(--line);border-radius:4px;padding:.5rem}
         figcaption{font-size:.85rem;color:var(--muted);padding:.3rem .2rem 0}
         .legend{display:block;margin-top:.2rem}
