@@ -51,6 +51,8 @@ public static class PageStyle
         .none{font-style:italic;color:var(--muted)}
         .plot-grid{display:grid;grid-template-columns:repeat(auto-fit,minmax(24rem,1fr));gap:1rem}
         figure{margin:0 0 1rem;background:#fff;border:1px solid var(--line);border-radius:4px;padding:.5rem}
+        .reading{background:var(--panel);border-radius:4px;padding:.6rem 1rem;font-size:.88rem;align-self:start}
+        .reading h3{margin:.2rem 0 .4rem}.reading ul{padding-left:1.1rem;margin:0}.reading li{margin:.35rem 0}
         figcaption{font-size:.85rem;color:var(--muted);padding:.3rem .2rem 0}
         .legend{display:block;margin-top:.2rem}
         .key{display:inline-block;width:1.4rem;height:.7rem;margin:0 .25rem 0 .6rem;vertical-align:middle}

@@ -14,7 +14,7 @@ internal static class PlanPlot
     private const double Pad = 34;
 
     /// <summary>The longest residual arrow is drawn at about this share of the plan's span.</summary>
-    private const double LongestArrowShare = 0.12;
+    private const double LongestArrowShare = 0.16;
 
     /// <summary>Up to this many marks carry their id as a label; beyond, labels would overlap.</summary>
     private const int MaxLabelledMarks = 40;
@@ -29,7 +29,7 @@ internal static class PlanPlot
         var s = new PlotScale(Pad, Pad, Size - (2 * Pad), Size - (2 * Pad), midE - half, midE + half, midN - half, midN + half);
 
         double longest = report.Residuals.Where(r => r.Excluded is null).Select(r => r.DH).DefaultIfEmpty(0).Max();
-        double exaggeration = longest > 0 ? PlotScale.NiceFloor(span * LongestArrowShare / longest) : 1.0;
+        double exaggeration = longest > 0 ? PlotScale.NiceStep(span * LongestArrowShare / longest) : 1.0;
         double unit = s.UnitsPerX;
 
         Svg.Open(html, "plot-plan", Size, Size, "Residual vectors on a plan of the marks",

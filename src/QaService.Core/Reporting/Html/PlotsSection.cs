@@ -25,7 +25,12 @@ internal static class PlotsSection
             Figure(html, "fig-cdf", () => CdfPlot.Render(html, report, plots),
                 "Share of fixes within a horizontal error, against the fitted model.",
                 [("k-ecdf", "observed share"), ("k-model", "fitted zero-mean normal"), ("k-level", "50 % and 95 % levels")]);
-            html.Append("</div>");
+            html.Append("<aside class=\"reading\" aria-labelledby=\"reading-h\"><h3 id=\"reading-h\">Reading these pictures</h3><ul>")
+                .Append("<li><strong>Scatter:</strong> a cloud centred away from the cross is a systematic shift (see the <code>bias</code> check); an ellipse much longer than wide points at one direction of error.</li>")
+                .Append("<li><strong>Plan:</strong> arrows that all point the same way are a datum or offset problem; long arrows in one corner point at local conditions there (cover, multipath).</li>")
+                .Append("<li><strong>Distribution:</strong> steps far right of the smooth curve at the top are fixes worse than a normal model expects: possible blunders.</li>")
+                .Append("<li><strong>Vertical:</strong> most stems on one side of zero means a height offset: antenna height, or ellipsoidal against orthometric heights.</li>")
+                .Append("</ul></aside></div>");
         }
 
         if (report.Vertical is not null)
