@@ -6,6 +6,7 @@ using QaService.Api.Home;
 using QaService.Api.Reports;
 using QaService.Api.Security;
 using QaService.Api.Transform;
+using QaService.Api.Screening;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -20,6 +21,7 @@ app.MapReports();
 app.MapTransform();
 app.MapCrs();
 app.MapAdmin();
+app.MapScreening();
 
 await app.RunAsync();
 

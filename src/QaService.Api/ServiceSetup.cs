@@ -49,6 +49,7 @@ internal static class ServiceSetup
         builder.Services.AddSingleton<ITenantContext, HttpTenantContext>();
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
         builder.Services.AddSingleton<QaMetrics>();
+        builder.Services.AddSingleton<MultipartUploadReader>();
         builder.Services.AddHostedService<StartupTasks>();
         builder.Services.AddHostedService<ExposureWarning>();
 

@@ -206,12 +206,12 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
         await ProblemAssert.IsProblemAsync(await client.PostRawAsync(Requests.Minimal().ToJsonString(), "text/plain"), HttpStatusCode.UnsupportedMediaType);
 
     [Fact]
-    public async Task Multipart_is_415_until_file_formats_arrive()
+    public async Task Multipart_without_files_names_the_missing_parts()
     {
         var form = new MultipartFormDataContent { { new StringContent("{}"), "options" } };
         var response = await client.PostAsync("/v1/assessments", form);
-        var problem = await ProblemAssert.IsProblemAsync(response, HttpStatusCode.UnsupportedMediaType);
-        Assert.Contains("not supported yet", problem.GetProperty("detail").GetString());
+        await ProblemAssert.IsBadInputAsync(response, "/marks", "required");
+        await ProblemAssert.IsBadInputAsync(await client.PostAsync("/v1/assessments", new MultipartFormDataContent { { new StringContent("{}"), "options" } }), "/fixes", "required");
     }
 
     [Fact]

@@ -8,6 +8,7 @@ using QaService.Api.Problems;
 using QaService.Api.Security;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
+using QaService.Core.Ingest;
 using QaService.Core.Reporting;
 
 namespace QaService.Api.Assessments;
@@ -22,7 +23,10 @@ internal static class AssessmentsApi
         group.MapPost("/", CreateAsync)
             .WithName("CreateAssessment")
             .WithSummary("Test fixes against marks and store the conformance report")
-            .WithDescription("Pairs each fix with a mark, computes residuals in east-north-up at the mark, the NSSDA/RMSE/CEP figures and checks, and returns the stored report.")
+            .WithDescription("Pairs each fix with a mark, computes residuals in east-north-up at the mark, the NSSDA/RMSE/CEP figures and checks, and returns the stored report. " +
+                "Takes application/json (the request with points) or multipart/form-data with parts \"options\" (the JSON request without points, plus CSV columns, lengthUnit, decimalSeparator, delimiter, rowErrors), " +
+                "\"marks\" and \"fixes\" (files: CSV with a header row, GeoJSON Point features, GPX 1.1, NMEA 0183 GGA/GST/GSA/RMC; recognised from content). " +
+                "Errors in a file row point at the part and row: /fixes/line/17/lat (CSV, GPX, NMEA: 1-based line) or /fixes/features/3/lat (GeoJSON: 0-based feature).")
             .WithMetadata(new JsonRequestBody(typeof(AssessmentRequest)))
             .Produces<AssessmentReport>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
@@ -45,6 +49,7 @@ internal static class AssessmentsApi
     internal static async Task<IResult> CreateAsync(
         HttpRequest request,
         JsonBodyReader<AssessmentRequest> reader,
+        MultipartUploadReader uploads,
         IReportStore store,
         ITenantContext tenant,
         IOptions<LimitsOptions> limits,
@@ -53,21 +58,34 @@ internal static class AssessmentsApi
         ILogger<AssessmentRequest> logger,
         CancellationToken cancellationToken)
     {
-        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
-        if (problem is not null)
-            return problem;
-        var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
-        if (PointCap.Check(limits.Value, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
-            return tooMany;
-
-        var outcome = RequestValidator.Validate(body);
+        ValidationOutcome outcome;
+        IngestSummary? ingest = null;
+        if (MultipartUploadReader.IsMultipart(request))
+        {
+            var (options, marks, fixes, uploadProblem) = await uploads.ReadAsync(request, cancellationToken);
+            if (uploadProblem is not null)
+                return uploadProblem;
+            if (PointCap.Check(limits.Value, ("/marks", marks!.Points.Count), ("/fixes", fixes!.Points.Count)) is { } tooManyRead)
+                return tooManyRead;
+            (outcome, ingest) = UploadValidation.Validate(options!, marks, fixes);
+        }
+        else
+        {
+            var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+            if (problem is not null)
+                return problem;
+            var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
+            if (PointCap.Check(limits.Value, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
+                return tooMany;
+            outcome = RequestValidator.Validate(body);
+        }
         if (outcome.Assessment is null)
             return InputProblems.Invalid(outcome.Errors);
 
-        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow());
+        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
         var json = await StoreAsync(store, tenant.TenantId, report, cancellationToken);
         AssessmentLog.Created(logger, report.Id, report.Verdict.ToString(), report.Counts.Paired);
-        metrics.AssessmentStored(VerdictText(report), pointCount.Marks + pointCount.Fixes);
+        metrics.AssessmentStored(VerdictText(report), report.Counts.Marks + report.Counts.Fixes);
         return new JsonTextResult(json, StatusCodes.Status201Created, $"/v1/assessments/{report.Id}");
     }
 

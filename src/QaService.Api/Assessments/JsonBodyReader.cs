@@ -21,7 +21,7 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         {
             var given = string.IsNullOrEmpty(request.ContentType) ? "no Content-Type" : $"Content-Type \"{request.ContentType}\"";
             var hint = request.HasFormContentType
-                ? "multipart/form-data uploads of field files are not supported yet; send the request as application/json"
+                ? "send field files as multipart/form-data (parts options, marks, fixes), or the request as application/json"
                 : "send the request as application/json";
             return (null, InputProblems.Status(StatusCodes.Status415UnsupportedMediaType, "Unsupported media type", $"{given}: {hint}"));
         }

@@ -59,7 +59,9 @@ public sealed record AccuracySpec(string? Standard = null, double? Horizontal = 
 
 /// <summary>Proximity pairing for fixes that name no mark.</summary>
 /// <param name="Radius">Largest horizontal distance from fix to mark, metres (default 5).</param>
-public sealed record PairingOptions(double? Radius = null);
+/// <param name="Occupations"><c>each</c> (default: every fix is a test point) or <c>mean</c> (each mark's repeat
+/// occupations are averaged and the mean is the test point, as survey practice often does).</param>
+public sealed record PairingOptions(double? Radius = null, string? Occupations = null);
 
 /// <summary>A fix left out of the statistics on purpose (still listed among the residuals).</summary>
 /// <param name="Fix">The fix id.</param>

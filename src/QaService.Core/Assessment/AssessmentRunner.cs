@@ -25,7 +25,9 @@ public static class AssessmentRunner
             .Select(p => ResidualComputation.Compute(p, markGeocentric[markIndex[p.Mark.Id]], ellipsoid,
                 input.ExclusionReasonsByFixId.GetValueOrDefault(p.Fix.Id)))
             .ToList();
-        var included = residuals.Where(r => r.Excluded is null).ToList();
+        var counted = residuals.Where(r => r.Excluded is null).ToList();
+        var precision = RepeatOccupations.Precision(counted);
+        var included = input.Occupations == OccupationMode.Mean ? RepeatOccupations.Means(counted) : counted;
 
         var horizontal = included.Count == 0
             ? null
@@ -44,10 +46,10 @@ public static class AssessmentRunner
             input.Title,
             createdAt,
             verdict,
-            new ReportCounts(input.Marks.Count, input.Fixes.Count, pairs.Count, unpaired, residuals.Count - included.Count),
+            new ReportCounts(input.Marks.Count, input.Fixes.Count, pairs.Count, unpaired, residuals.Count - counted.Count),
             horizontal,
             vertical,
-            residuals,
+            input.Occupations == OccupationMode.Mean ? [.. included, .. residuals.Where(r => r.Excluded is not null)] : residuals,
             checks,
             NssdaStatement.Compose(horizontal, vertical, input.MarksFrame.Crs.Unit),
             ReportCautions.For(verdict, included.Count, minimumPoints),
@@ -57,6 +59,18 @@ public static class AssessmentRunner
             figures.Confidence,
             figures.Approximations,
             figures.OffsetModel,
-            figures.OutlierSensitivity);
+            figures.OutlierSensitivity,
+            Summarise(input.Occupations, pairs, precision));
+    }
+
+    /// <summary>The pairing block, or null when there is nothing to say beyond the residuals.</summary>
+    private static PairingSummary? Summarise(OccupationMode mode, IReadOnlyList<MarkFixPair> pairs, IReadOnlyList<OccupationPrecision> precision)
+    {
+        var ambiguous = pairs.Where(p => p.AlsoWithinRadius is { Count: > 0 })
+            .Select(p => new AmbiguousPairing(p.Fix.Id, p.Mark.Id, p.AlsoWithinRadius!))
+            .ToList();
+        if (mode == OccupationMode.Each && ambiguous.Count == 0 && precision.Count == 0)
+            return null;
+        return new PairingSummary(mode == OccupationMode.Mean ? "mean" : "each", ambiguous, precision);
     }
 }

@@ -4,7 +4,8 @@ namespace QaService.Core.Assessment;
 
 /// <summary>A fix and the mark it is tested against.</summary>
 /// <param name="PairedBy"><c>id</c> or <c>proximity</c>.</param>
-public sealed record MarkFixPair(FramedPoint Mark, FramedPoint Fix, string PairedBy);
+/// <param name="AlsoWithinRadius">Proximity pairing only: other marks within the radius (the pairing is ambiguous); null when none.</param>
+public sealed record MarkFixPair(FramedPoint Mark, FramedPoint Fix, string PairedBy, IReadOnlyList<string>? AlsoWithinRadius = null);
 
 /// <summary>
 /// Pairs fixes with marks (api-v1: by <c>mark</c> id; otherwise, when pairing is requested, with the
@@ -34,21 +35,23 @@ public static class MarkPairing
                 pairs.Add(new MarkFixPair(assessment.Marks[byId], fix, ById));
                 continue;
             }
-            var nearest = assessment.PairingRadiusMetres is { } radius
+            var (nearest, others) = assessment.PairingRadiusMetres is { } radius
                 ? NearestWithin(assessment, markGeocentric, fix, radius)
-                : -1;
+                : (-1, null);
             if (nearest < 0)
                 unpaired++;
             else
-                pairs.Add(new MarkFixPair(assessment.Marks[nearest], fix, ByProximity));
+                pairs.Add(new MarkFixPair(assessment.Marks[nearest], fix, ByProximity, others));
         }
         return (pairs, unpaired);
     }
 
-    private static int NearestWithin(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric, FramedPoint fix, double radiusMetres)
+    /// <summary>The nearest mark within the radius (nearest wins) and the ids of any other marks also within it.</summary>
+    private static (int Nearest, List<string>? Others) NearestWithin(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric, FramedPoint fix, double radiusMetres)
     {
         var best = -1;
         var bestDistance = double.PositiveInfinity;
+        var within = 0;
         for (var i = 0; i < assessment.Marks.Count; i++)
         {
             var mark = assessment.Marks[i];
@@ -56,12 +59,30 @@ public static class MarkPairing
             var enu = LocalTangentPlane.Difference(markGeocentric[i], mark.Geodetic,
                 GeocentricConversion.ToGeocentric(fixAtMarkHeight, assessment.MarksFrame.Crs.Ellipsoid));
             var distance = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
-            if (distance <= radiusMetres && distance < bestDistance)
+            if (distance > radiusMetres)
+                continue;
+            within++;
+            if (distance < bestDistance)
             {
                 best = i;
                 bestDistance = distance;
             }
         }
-        return best;
+        if (within < 2)
+            return (best, null);
+        // Rare: a second pass names the other marks, so the common case allocates nothing.
+        var others = new List<string>(within - 1);
+        for (var i = 0; i < assessment.Marks.Count; i++)
+        {
+            var mark = assessment.Marks[i];
+            if (i == best)
+                continue;
+            var fixAtMarkHeight = fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
+            var enu = LocalTangentPlane.Difference(markGeocentric[i], mark.Geodetic,
+                GeocentricConversion.ToGeocentric(fixAtMarkHeight, Ellipsoid.Wgs84));
+            if (Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres) <= radiusMetres)
+                others.Add(mark.Id);
+        }
+        return (best, others);
     }
 }

@@ -46,6 +46,7 @@ public static class RequestValidator
 
         var spec = ReadSpec(request.Spec, errors);
         var radius = ReadPairing(request.Pairing, errors);
+        var occupations = OccupationModes.Read(request.Pairing?.Occupations, errors);
         var exclusions = ReadExclusions(request.Exclusions, fixes, errors);
 
         if (errors.Count > 0)
@@ -57,7 +58,7 @@ public static class RequestValidator
 
         return ValidationOutcome.Valid(new ValidatedAssessment(
             string.IsNullOrWhiteSpace(request.Title) ? null : request.Title.Trim(),
-            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation));
+            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation, occupations));
     }
 
     private static PointSetFrame? ReadFrame(PointSet? set, string pointer, List<InputError> errors)

@@ -53,7 +53,8 @@ public sealed record ValidatedAssessment(
     RequiredAccuracy? Spec,
     double? PairingRadiusMetres,
     IReadOnlyDictionary<string, string> ExclusionReasonsByFixId,
-    string? FrameOperation = null)
+    string? FrameOperation = null,
+    OccupationMode Occupations = OccupationMode.Each)
 {
     /// <summary>True when both sides carry heights that can be compared.</summary>
     public bool HasVerticalComparison =>

@@ -24,6 +24,8 @@ namespace QaService.Core.Reporting;
 /// <param name="Approximations">Rules of thumb beside the exact horizontal radii, each with its validity range.</param>
 /// <param name="OffsetModel">Radii about the mark predicted with the observed mean offset (noncentral case).</param>
 /// <param name="OutlierSensitivity">Figures with and without the fixes the outlier check flags (never dropped silently).</param>
+/// <param name="Pairing">Ambiguous proximity pairings and repeat occupations (precision per mark); null when neither occurred.</param>
+/// <param name="Ingest">How uploaded files were read; null for JSON requests.</param>
 public sealed record AssessmentReport(
     string Id,
     string? Title,
@@ -42,7 +44,9 @@ public sealed record AssessmentReport(
     Standards.ConfidenceSummary? Confidence = null,
     IReadOnlyList<Approximation>? Approximations = null,
     OffsetRadii? OffsetModel = null,
-    OutlierSensitivity? OutlierSensitivity = null);
+    OutlierSensitivity? OutlierSensitivity = null,
+    PairingSummary? Pairing = null,
+    IngestSummary? Ingest = null);
 
 /// <summary>
 /// The headline figures with and without the residuals the outlier check flags, so a blunder's weight is visible and

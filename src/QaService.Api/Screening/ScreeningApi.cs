@@ -1,0 +1,63 @@
+using System.Globalization;
+using System.Text;
+using QaService.Api.Assessments;
+using QaService.Api.OpenApi;
+using QaService.Api.Problems;
+using QaService.Core.Screening;
+
+namespace QaService.Api.Screening;
+
+/// <summary>Per-fix screening for apps on upload: accept / flag / reject each fix with every reason. Rules live in Core.</summary>
+internal static class ScreeningApi
+{
+    public static RouteGroupBuilder MapScreening(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/v1/screenings").WithTags("Screening");
+
+        group.MapPost("/", ScreenAsync)
+            .WithName("ScreenFixes")
+            .WithSummary("Accept, flag or reject each fix from its receiver metadata, with every reason")
+            .WithDescription(Description())
+            .WithMetadata(new JsonRequestBody(typeof(ScreeningRequest)))
+            .Produces<ScreeningReport>()
+            .ProducesProblem(StatusCodes.Status400BadRequest)
+            .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
+
+        group.MapGet("/profiles", () => TypedResults.Ok(ScreeningProfiles.All))
+            .WithName("ListScreeningProfiles")
+            .WithSummary("The named screening profiles and their thresholds")
+            .Produces<IReadOnlyList<ScreeningProfile>>();
+        return group;
+    }
+
+    internal static async Task<IResult> ScreenAsync(HttpRequest request, JsonBodyReader<ScreeningRequest> reader, CancellationToken cancellationToken)
+    {
+        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+        if (problem is not null)
+            return problem;
+        var (report, errors) = FixScreening.Screen(body);
+        return report is null ? InputProblems.Invalid(errors) : TypedResults.Ok(report);
+    }
+
+    /// <summary>The profiles, written out for the OpenAPI description from the same objects the rules use.</summary>
+    private static string Description()
+    {
+        var text = new StringBuilder(
+            "Rules: quality (profile's reject/flag lists), satellites (fewer than 4 cannot give a 3-D fix: always reject; profile minimum and flag level), " +
+            "pdop/hdop/vdop (flag above the profile's maximum), horizontal-error and vertical-error (reported estimates: flag/reject above the profile's limits), " +
+            "correction-age (flag/reject), elevation-mask (flag below the minimum: low satellites suffer more ionospheric delay), expected-error (autonomous fixes: " +
+            "2·HDOP·UERE(1σ), UERE(95 %) 15.7 m C/A budget, flagged above the horizontal flag limit; autonomous is typically 5–10 m). " +
+            "Rules marked \"common practice\" have no standard behind their numbers. Every threshold can be overridden in \"thresholds\". Profiles:");
+        foreach (var p in ScreeningProfiles.All)
+        {
+            var t = p.Thresholds;
+            text.Append(CultureInfo.InvariantCulture,
+                $" [{p.Name}{(p.Name == ScreeningProfiles.DefaultName ? ", default" : "")}] {p.Purpose} Reject qualities: {string.Join("/", t.RejectQualities ?? [])}; flag: {string.Join("/", t.FlagQualities ?? [])}; " +
+                $"satellites reject < {t.MinimumSatellites}, flag < {t.FlagSatellitesBelow}; PDOP/HDOP/VDOP ≤ {t.MaximumPdop}/{t.MaximumHdop}/{t.MaximumVdop}; " +
+                $"horizontal error flag > {t.FlagHorizontalError} m, reject > {t.RejectHorizontalError} m; vertical flag > {t.FlagVerticalError} m, reject > {t.RejectVerticalError} m; " +
+                $"correction age flag > {t.MaximumCorrectionAge} s, reject > {t.RejectCorrectionAge} s; elevation mask ≥ {t.MinimumElevationMask}°.");
+        }
+        return text.ToString();
+    }
+}
