@@ -53,7 +53,8 @@ public sealed class UploadFormTests(LiveService service, ITestOutputHelper outpu
             { "title": "Form upload <b>check</b>",
               "marks": { "crs": "EPSG:32633", "heights": "ellipsoidal" },
               "fixes": { "crs": "EPSG:4979", "heights": "ellipsoidal" },
-              "spec": { "standard": "nssda", "horizontal": 0.10, "vertical": 0.15 } }
+              "spec": { "standard": "nssda", "horizontal": 0.10, "vertical": 0.15 },
+              "pairing": { "radius": 1.0 } }
             """);
         await page.Locator("#marks").SetInputFilesAsync(new FilePayload { Name = "marks.csv", MimeType = "text/csv", Buffer = Encoding.UTF8.GetBytes(marksCsv) });
         await page.Locator("#fixes").SetInputFilesAsync(new FilePayload { Name = "fixes.csv", MimeType = "text/csv", Buffer = Encoding.UTF8.GetBytes(fixesCsv) });
@@ -63,7 +64,14 @@ public sealed class UploadFormTests(LiveService service, ITestOutputHelper outpu
         Assert.Empty(session.Errors);
         Assert.Equal("PASS", await page.Locator("#verdict").InnerTextAsync());
         Assert.Equal("Form upload <b>check</b>", await page.Locator("h1").InnerTextAsync());
-        Assert.Equal(27, await page.Locator("#plot-scatter circle.pt").CountAsync());
+        // The uploaded files hold the demo's points: the new report pairs as many fixes, and plots every counted one.
+        string jsonPath = new Uri(page.Url).AbsolutePath.Replace("/report.html", "", StringComparison.Ordinal);
+        var report = System.Text.Json.JsonDocument.Parse(await service.Http.GetStringAsync(jsonPath.TrimStart('/'))).RootElement;
+        var demo = System.Text.Json.JsonDocument.Parse(await service.Http.GetStringAsync("v1/assessments/demo")).RootElement;
+        Assert.Equal(demo.GetProperty("counts").GetProperty("paired").GetInt32(), report.GetProperty("counts").GetProperty("paired").GetInt32());
+        int included = report.GetProperty("residuals").EnumerateArray().Count(r => r.GetProperty("excluded").ValueKind == System.Text.Json.JsonValueKind.Null);
+        Assert.Equal(report.GetProperty("horizontal").GetProperty("n").GetInt32(), included);
+        Assert.Equal(included, await page.Locator("#plot-scatter circle.pt").CountAsync());
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(LiveService.ArtifactFolder, "uploaded-report.png"), FullPage = true });
 
         await page.GotoAsync("/");
@@ -93,7 +101,10 @@ public sealed class UploadFormTests(LiveService service, ITestOutputHelper outpu
         Assert.False(string.IsNullOrWhiteSpace(await page.Locator("#problem-detail").InnerTextAsync()));
     }
 
-    /// <summary>The demo's marks (UTM 33N) and fixes (WGS 84) as CSV files with the contract's column names.</summary>
+    /// <summary>
+    /// The demo's marks (UTM 33N) and fixes (WGS 84) as CSV files with the contract's column names; a fix without a
+    /// mark keeps an empty mark cell and is paired by proximity, as in the demo's JSON request (radius 1 m).
+    /// </summary>
     private static (string Marks, string Fixes) DemoAsCsv()
     {
         var request = JsonNode.Parse(File.ReadAllText(HostileInputTests.DemoRequestPath()))!;
