@@ -94,7 +94,7 @@ internal static class HomePage
         html.Append("<section aria-labelledby=\"upload-h\"><h2 id=\"upload-h\"><span class=\"num\">2</span> Test a new batch</h2>")
             .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}\" enctype=\"multipart/form-data\">")
             .Append("<p><label for=\"options\">Options (JSON): title, each side's <code>crs</code> and <code>heights</code>, the required accuracy in <code>spec</code>; for CSV files also <code>columns</code>.</label>")
-            .Append($"<textarea id=\"options\" name=\"options\" rows=\"8\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
+            .Append($"<textarea id=\"options\" name=\"options\" rows=\"9\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
             .Append("<p><label for=\"marks\">Marks file (the surveyed check points)</label> <input id=\"marks\" name=\"marks\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")
             .Append("<p><label for=\"fixes\">Fixes file (the field positions to test)</label> <input id=\"fixes\" name=\"fixes\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")
             .Append("<p class=\"small\">Files: CSV with a header row, GeoJSON points, GPX 1.1 or NMEA 0183 (GGA); the format is recognised from the content.</p>")

@@ -94,6 +94,10 @@ public static class PageStyle
         .frames div{display:contents}.frames dt{font-weight:600}.frames dd{margin:0}
         .steps li,.cautions li{margin:.2rem 0}
         .cautions{padding-left:1.2rem}
+        .upload label{display:block;font-weight:600;margin-bottom:.25rem}
+        .upload textarea{width:100%;font:13px/1.45 ui-monospace,Menlo,Consolas,monospace;padding:.5rem;border:1px solid #9a9384;border-radius:4px;background:#fff;color:var(--ink)}
+        .upload button{font:inherit;font-weight:700;padding:.45rem 1.2rem;border:0;border-radius:4px;background:var(--ink);color:var(--paper);cursor:pointer}
+        .upload button:focus-visible,.upload input:focus-visible,.upload textarea:focus-visible{outline:3px solid var(--rule);outline-offset:2px}
         footer{margin-top:2.5rem;padding-top:.6rem;border-top:1px solid var(--line);font-size:.8rem;color:var(--muted)}
         .skip{position:absolute;left:-999px}.skip:focus{left:1rem;top:1rem;background:#fff;padding:.3rem}
         @page{margin:15mm 15mm 16mm}
