@@ -38,6 +38,7 @@ internal static class AssessmentsApi
         group.MapGet("/{id}", GetAsync)
             .WithName("GetAssessment")
             .WithSummary("Read a stored conformance report")
+            .AddEndpointFilter<Reports.HtmlNegotiation>()
             .Produces<AssessmentReport>()
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status401Unauthorized);
@@ -152,6 +153,10 @@ internal static class AssessmentsApi
 internal sealed class JsonStreamResult(Stream json, int statusCode, string? location) : IResult
 {
     private const int CopyBufferBytes = 81_920;
+
+    public int StatusCode => statusCode;
+
+    public string? Location => location;
 
     public async Task ExecuteAsync(HttpContext httpContext)
     {

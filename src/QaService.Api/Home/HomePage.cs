@@ -1,26 +1,103 @@
+using System.Globalization;
+using System.Text;
+using QaService.Api.Security;
+using QaService.Api.Reports;
+using QaService.Api.Storage;
+using QaService.Core.Reporting.Html;
+using static QaService.Core.Reporting.Html.HtmlText;
+
 namespace QaService.Api.Home;
 
-/// <summary>A plain landing page at <c>/</c> that points a person to the demo and the API explorer.</summary>
+/// <summary>
+/// The small web UI at <c>/</c>: recent assessments and an upload form whose parts are exactly the contract's
+/// multipart request (<c>options</c>, <c>marks</c>, <c>fixes</c>). Server-rendered, no script.
+/// </summary>
 internal static class HomePage
 {
-    private const string Html = """
-        <!doctype html>
-        <html lang="en"><head><meta charset="utf-8"><title>QaService</title>
-        <style>body{font:16px/1.5 system-ui,sans-serif;max-width:44rem;margin:2rem auto;padding:0 1rem;color:#1d2a33}
-        a{color:#0b5e7a}code{background:#eef3f5;padding:0 .25rem}</style></head>
-        <body>
-        <h1>QaService</h1>
-        <p>Positional accuracy testing for GNSS field collections: post fixes and surveyed check points,
-        get NSSDA, RMSE and circular-error figures, checks and a verdict.</p>
-        <ul>
-          <li><a href="/v1/assessments/demo">Demo report</a> (invented scenario: Millbrook Ferry Water Cooperative hydrants)</li>
-          <li><a href="/swagger">API explorer</a> and the <a href="/openapi/v1.json">OpenAPI document</a></li>
-          <li><a href="/healthz">/healthz</a> and <a href="/readyz">/readyz</a></li>
-        </ul>
-        <p><small>Reports are statistical accuracy tests, not survey certifications.</small></p>
-        </body></html>
+    /// <summary>How many assessments the list shows.</summary>
+    public const int RecentCount = 50;
+
+    /// <summary>The options the form starts with: the contract's JSON request without points.</summary>
+    public const string OptionsTemplate = """
+        {
+          "title": "Hydrant survey, batch 1",
+          "marks": { "crs": "EPSG:32633", "heights": "ellipsoidal" },
+          "fixes": { "crs": "EPSG:4979", "heights": "ellipsoidal" },
+          "spec": { "standard": "nssda", "horizontal": 0.50, "vertical": 1.00 }
+        }
         """;
 
-    public static void MapHome(this IEndpointRouteBuilder routes) =>
-        routes.MapGet("/", () => TypedResults.Content(Html, "text/html; charset=utf-8")).ExcludeFromDescription();
+    public static void MapHome(this IEndpointRouteBuilder routes)
+    {
+        routes.MapGet("/", ShowAsync).ExcludeFromDescription();
+        routes.MapPost(UploadForm.Path, (HttpContext context, EndpointDataSource endpoints) => UploadForm.SubmitAsync(context, endpoints)).ExcludeFromDescription();
+    }
+
+    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, CancellationToken cancellationToken)
+    {
+        // With API keys required a browser is nobody's tenant: it gets the page without a list or form.
+        var tenant = context.Features.Get<TenantFeature>();
+        var recent = tenant is null ? null : await store.ListRecentAsync(tenant.TenantId, RecentCount, cancellationToken);
+        return new HtmlPage(Render(recent));
+    }
+
+    internal static string Render(IReadOnlyList<ReportSummary>? recent)
+    {
+        var html = new StringBuilder();
+        PageShell.Open(html, "QaService — accuracy tests", "Accuracy tests of GNSS field positions", "QaService");
+        html.Append("<p>Test field fixes against surveyed check points: NSSDA, RMSE and exact circular-error figures, checks, a verdict and a report to sign.</p>");
+
+        if (recent is null)
+        {
+            html.Append("<p class=\"none\">This service requires API keys: use <code>/v1/assessments</code> with <code>Authorization: Bearer &lt;key&gt;</code>.</p>");
+        }
+        else
+        {
+            AppendList(html, recent);
+            AppendForm(html);
+        }
+
+        html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
+            .Append("<li><a href=\"/swagger\">API explorer</a> and the <a href=\"/openapi/v1.json\">OpenAPI document</a></li>")
+            .Append("<li><a href=\"/v1/assessments/demo/report.html\">the demo report</a> (invented data) · <a href=\"/healthz\">/healthz</a> · <a href=\"/readyz\">/readyz</a></li></ul></section>");
+        PageShell.Close(html, "Reports are statistical accuracy tests of submitted positions, not survey certifications.");
+        return html.ToString();
+    }
+
+    private static void AppendList(StringBuilder html, IReadOnlyList<ReportSummary> recent)
+    {
+        html.Append("<section aria-labelledby=\"recent-h\"><h2 id=\"recent-h\"><span class=\"num\">1</span> Recent assessments</h2>");
+        if (recent.Count == 0)
+        {
+            html.Append("<p class=\"none\">None yet. Upload a pair of files below.</p>");
+        }
+        else
+        {
+            html.Append("<table id=\"recent\"><caption>Newest first</caption><thead><tr><th scope=\"col\">made (UTC)</th><th scope=\"col\">title</th><th scope=\"col\">verdict</th><th scope=\"col\">views</th></tr></thead><tbody>");
+            foreach (var r in recent)
+            {
+                string tag = r.Verdict switch { "pass" => "t-pass", "fail" => "t-fail", _ => "t-warn" };
+                html.Append($"<tr><td class=\"n\">{Escape(r.CreatedAt.UtcDateTime.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture))}</td>")
+                    .Append($"<th scope=\"row\"><a href=\"{ReportLinks.Page(r.Id)}\">{Escape(string.IsNullOrWhiteSpace(r.Title) ? "(untitled)" : r.Title)}</a></th>")
+                    .Append($"<td><span class=\"tag {tag}\">{Escape(r.Verdict)}</span></td>")
+                    .Append($"<td><a href=\"{ReportLinks.Json(r.Id)}\">JSON</a> · <a href=\"{ReportLinks.Csv(r.Id)}\">CSV</a> · <a href=\"{ReportLinks.GeoJson(r.Id)}\">GeoJSON</a></td></tr>");
+            }
+
+            html.Append("</tbody></table>");
+        }
+
+        html.Append("</section>");
+    }
+
+    private static void AppendForm(StringBuilder html)
+    {
+        html.Append("<section aria-labelledby=\"upload-h\"><h2 id=\"upload-h\"><span class=\"num\">2</span> Test a new batch</h2>")
+            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}\" enctype=\"multipart/form-data\">")
+            .Append("<p><label for=\"options\">Options (JSON): title, each side's <code>crs</code> and <code>heights</code>, the required accuracy in <code>spec</code>; for CSV files also <code>columns</code>.</label>")
+            .Append($"<textarea id=\"options\" name=\"options\" rows=\"9\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
+            .Append("<p><label for=\"marks\">Marks file (the surveyed check points)</label> <input id=\"marks\" name=\"marks\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")
+            .Append("<p><label for=\"fixes\">Fixes file (the field positions to test)</label> <input id=\"fixes\" name=\"fixes\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")
+            .Append("<p class=\"small\">Files: CSV with a header row, GeoJSON points, GPX 1.1 or NMEA 0183 (GGA); the format is recognised from the content.</p>")
+            .Append("<p><button type=\"submit\">Run the test</button></p></form></section>");
+    }
 }

@@ -36,6 +36,13 @@ public interface IReportStore
     async Task<Stream?> OpenJsonAsync(string tenant, string id, CancellationToken cancellationToken) =>
         await FindJsonAsync(tenant, id, cancellationToken) is { } json ? new MemoryStream(Encoding.UTF8.GetBytes(json), writable: false) : null;
 
+    /// <summary>
+    /// The tenant's newest reports first (id, time, title, verdict; no JSON), at most <paramref name="limit"/>.
+    /// The default (an empty list) keeps stores and test doubles that do not list compiling.
+    /// </summary>
+    Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken) =>
+        Task.FromResult<IReadOnlyList<ReportSummary>>([]);
+
     /// <summary>True when the store answers a trivial query.</summary>
     Task<bool> IsReachableAsync(CancellationToken cancellationToken);
 }
@@ -45,3 +52,6 @@ public sealed record StoredReport(string Tenant, string Id, DateTimeOffset Creat
 
 /// <summary>One report row without its JSON (which travels as a stream).</summary>
 public sealed record ReportHeader(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);
+
+/// <summary>One line of a report list.</summary>
+public sealed record ReportSummary(string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);

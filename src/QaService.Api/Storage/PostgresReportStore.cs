@@ -33,6 +33,18 @@ internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReport
         return await command.ExecuteScalarAsync(cancellationToken) as string;
     }
 
+    public async Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand("SELECT id, created_at, title, verdict FROM reports WHERE tenant = $1 ORDER BY created_at DESC, id LIMIT $2");
+        command.Parameters.Add(new NpgsqlParameter { Value = tenant });
+        command.Parameters.Add(new NpgsqlParameter { Value = limit });
+        var list = new List<ReportSummary>();
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken))
+            list.Add(new ReportSummary(reader.GetString(0), reader.GetFieldValue<DateTimeOffset>(1), reader.IsDBNull(2) ? null : reader.GetString(2), reader.GetString(3)));
+        return list;
+    }
+
     public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)
     {
         try

@@ -123,6 +123,24 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         }
     }
 
+    public async Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken)
+    {
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT id, created_at, title, verdict FROM reports WHERE tenant = $tenant ORDER BY created_at DESC, id LIMIT $limit";
+        command.Parameters.AddWithValue("$tenant", tenant);
+        command.Parameters.AddWithValue("$limit", limit);
+        var list = new List<ReportSummary>();
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken))
+        {
+            var created = DateTimeOffset.Parse(reader.GetString(1), System.Globalization.CultureInfo.InvariantCulture, System.Globalization.DateTimeStyles.AssumeUniversal);
+            list.Add(new ReportSummary(reader.GetString(0), created, reader.IsDBNull(2) ? null : reader.GetString(2), reader.GetString(3)));
+        }
+
+        return list;
+    }
+
     public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)
     {
         try

@@ -74,7 +74,8 @@ public sealed class TenantKeyTests(KeysHost host) : IClassFixture<KeysHost>
     }
 
     /// <summary>Every path under an assessment that returns its data.</summary>
-    internal static IEnumerable<string> TenantScopedReadPaths(string location) => [location];
+    internal static IEnumerable<string> TenantScopedReadPaths(string location) =>
+        [location, $"{location}/report.html", $"{location}/residuals.csv", $"{location}/residuals.geojson"];
 
     [Fact]
     public async Task Admin_creates_a_tenant_and_the_key_is_shown_once_and_stored_only_as_its_sha256()

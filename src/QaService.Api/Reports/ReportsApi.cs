@@ -1,0 +1,57 @@
+using QaService.Api.Problems;
+using QaService.Api.Security;
+using QaService.Api.Storage;
+using QaService.Core.Reporting;
+using QaService.Core.Reporting.Exports;
+using QaService.Core.Reporting.Html;
+
+namespace QaService.Api.Reports;
+
+/// <summary>The views of a stored report (api-v1): a self-contained HTML page, the residuals as CSV and as GeoJSON.</summary>
+internal static class ReportsApi
+{
+    public static RouteGroupBuilder MapReports(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/v1/assessments/{id}").WithTags("Reports");
+
+        group.MapGet("/report.html", HtmlAsync)
+            .WithName("GetAssessmentReportHtml")
+            .WithSummary("The report as one self-contained HTML page (inline CSS and SVG plots, no script)")
+            .Produces<string>(StatusCodes.Status200OK, "text/html")
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status401Unauthorized);
+
+        group.MapGet("/residuals.csv", CsvAsync)
+            .WithName("GetAssessmentResidualsCsv")
+            .WithSummary("The residual table as CSV (RFC 4180; text cells neutralised against spreadsheet formulas)")
+            .Produces<string>(StatusCodes.Status200OK, "text/csv")
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status401Unauthorized);
+
+        group.MapGet("/residuals.geojson", GeoJsonAsync)
+            .WithName("GetAssessmentResidualsGeoJson")
+            .WithSummary("The residual vectors as a GeoJSON FeatureCollection (marks in WGS 84 lon/lat, residuals in metres)")
+            .Produces<string>(StatusCodes.Status200OK, "application/geo+json")
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status401Unauthorized);
+
+        return group;
+    }
+
+    internal static Task<IResult> HtmlAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken) =>
+        WithReportAsync(id, store, tenant, cancellationToken, report => new HtmlPage(ReportPage.Render(report)));
+
+    internal static Task<IResult> CsvAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken) =>
+        WithReportAsync(id, store, tenant, cancellationToken, report => new DownloadResult(ResidualCsv.Write(report), ResidualCsv.MediaType, $"assessment-{report.Id}-residuals.csv"));
+
+    internal static Task<IResult> GeoJsonAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken) =>
+        WithReportAsync(id, store, tenant, cancellationToken, report => new DownloadResult(ResidualGeoJson.Write(report), ResidualGeoJson.MediaType, $"assessment-{report.Id}-residuals.geojson"));
+
+    private static async Task<IResult> WithReportAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken, Func<AssessmentReport, IResult> view)
+    {
+        var report = await StoredReports.LoadAsync(store, tenant.TenantId, id, cancellationToken);
+        return report is null
+            ? InputProblems.Status(StatusCodes.Status404NotFound, "Assessment not found", $"there is no assessment with id \"{(id.Length <= 64 ? id : id[..64] + "…")}\"")
+            : view(report);
+    }
+}
