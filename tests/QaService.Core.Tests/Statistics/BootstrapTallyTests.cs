@@ -1,0 +1,58 @@
+using QaService.Core.Statistics;
+
+namespace QaService.Core.Tests.Statistics;
+
+/// <summary>
+/// The bootstrap's rank tally must give exactly the bounds of the textbook procedure (Efron &amp; Tibshirani 1993, ch. 13:
+/// draw n values with replacement, sort, take the type-7 quantile, repeat; percentiles of the estimates), which is
+/// written out here independently with the same generator; and above the Monte Carlo limit the order-statistic limit
+/// must agree with that procedure to within a few order-statistic steps.
+/// </summary>
+public sealed class BootstrapTallyTests
+{
+    private static double[] Sample(int n, ulong seed)
+    {
+        var random = new SplitMix64(seed);
+        // Rounded to 1 mm so ties occur, as in real residuals.
+        return Enumerable.Range(0, n).Select(_ => Math.Round(3.0 * (random.Next() >> 11) / (1UL << 53), 3)).ToArray();
+    }
+
+    private static (double Lower, double Upper) Textbook(double[] values, double quantile, double level, int resamples, ulong seed)
+    {
+        var random = new SplitMix64(seed);
+        var estimates = new double[resamples];
+        var resample = new double[values.Length];
+        for (int b = 0; b < resamples; b++)
+        {
+            for (int i = 0; i < values.Length; i++)
+                resample[i] = values[random.NextIndex(values.Length)];
+            estimates[b] = Percentile.LinearInterpolation(resample, quantile);
+        }
+        double tail = (1.0 - level) / 2.0;
+        return (Percentile.LinearInterpolation(estimates, tail), Percentile.LinearInterpolation(estimates, 1.0 - tail));
+    }
+
+    [Theory]
+    [InlineData(24)]
+    [InlineData(2)]
+    [InlineData(137)]
+    [InlineData(1000)]
+    public void Tally_gives_the_same_bounds_as_sorting_every_resample(int n)
+    {
+        var values = Sample(n, 99);
+        Assert.Equal(Textbook(values, 0.95, 0.95, 500, 7), BootstrapInterval.OfQuantile(values, 0.95, 0.95, 500, 7));
+        Assert.Equal(Textbook(values, 0.5, 0.9, 300, 11), BootstrapInterval.OfQuantile(values, 0.5, 0.9, 300, 11));
+    }
+
+    [Fact]
+    public void Large_sample_limit_agrees_with_resampling()
+    {
+        var values = Sample(BootstrapInterval.MonteCarloLimit + 1, 5);
+        var limit = BootstrapInterval.OfQuantile(values, 0.95, 0.95);
+        var resampled = Textbook(values, 0.95, 0.95, 400, 3);
+        // 1 mm rounding on a 0–3 m spread: a few order-statistic steps are a few mm.
+        Assert.Equal(resampled.Lower, limit.Lower, 0.01);
+        Assert.Equal(resampled.Upper, limit.Upper, 0.01);
+        Assert.True(limit.Lower < Percentile.LinearInterpolation(values, 0.95) && Percentile.LinearInterpolation(values, 0.95) < limit.Upper);
+    }
+}
