@@ -27,7 +27,7 @@ internal static class AngleMath
     /// <returns>(sin, cos), each in [−1, 1].</returns>
     internal static (double Sin, double Cos) SinCosDegrees(double degrees)
     {
-        double r = Math.IEEERemainder(degrees, FullTurnDegrees); // exact, r in [-180, 180]
+        double r = ReduceToHalfTurn(degrees); // exact, r in [-180, 180]
         double quadrant = Math.Round(r / QuarterTurnDegrees);    // -2 .. 2
         r -= QuarterTurnDegrees * quadrant;                       // exact, r in [-45, 45]
         (double s, double c) = Math.SinCos(r * RadiansPerDegree);
@@ -49,7 +49,16 @@ internal static class AngleMath
     /// <param name="longitudeDegrees">λ, degrees, finite.</param>
     /// <param name="originDegrees">λ0, degrees, finite.</param>
     internal static double LongitudeDifferenceDegrees(double longitudeDegrees, double originDegrees)
-        => Math.IEEERemainder(longitudeDegrees - originDegrees, FullTurnDegrees);
+        => ReduceToHalfTurn(longitudeDegrees - originDegrees);
+
+    /// <summary>
+    /// IEEE remainder of <paramref name="degrees"/> by 360 (IEEE 754 §5.3.1: x − 360·n, n the nearest integer to x/360, ties
+    /// to even), so the result is in [−180, 180] and exact. Angles already in range are returned as they are — the same
+    /// value the remainder gives (n = 0 for |x| ≤ 180) without its cost (about a third of a batch projection, measured
+    /// with bench/QaService.Benchmarks).
+    /// </summary>
+    internal static double ReduceToHalfTurn(double degrees)
+        => Math.Abs(degrees) <= HalfTurnDegrees ? degrees : Math.IEEERemainder(degrees, FullTurnDegrees);
 
     /// <summary>Throws unless <paramref name="latitudeDegrees"/> is in [−90, 90].</summary>
     internal static void ValidateLatitude(double latitudeDegrees, string paramName)
