@@ -85,6 +85,8 @@ public static class BootstrapInterval
     /// </summary>
     private static double InterpolatedOrderStatistic(double[] sorted, int[] tally, int lower, double fraction)
     {
+        if (2 * lower >= sorted.Length)
+            return InterpolatedOrderStatisticFromTop(sorted, tally, lower, fraction);
         int seen = 0, r = 0;
         while (seen + tally[r] <= lower)
             seen += tally[r++];
@@ -97,6 +99,33 @@ public static class BootstrapInterval
     }
 
     /// <summary>Type-7 interpolated order statistic at rank h + z·√(np(1 − p)), clamped to the sample (large-n limit).</summary>
+    /// <summary>
+    /// <see cref="InterpolatedOrderStatistic"/> for upper quantiles, walking the tally down from the largest value: the
+    /// same two order statistics and the same interpolation expression, in fewer steps (for the 95th percentile of 24
+    /// values, 3 instead of 22).
+    /// </summary>
+    private static double InterpolatedOrderStatisticFromTop(double[] sorted, int[] tally, int lower, double fraction)
+    {
+        int n = sorted.Length;
+        int r = n - 1, above = 0; // above: resample members at ranks > r
+        if (fraction != 0.0 && lower + 1 < n)
+        {
+            int upperFromTop = n - 2 - lower; // 0-based position of order statistic lower + 1, counted from the top
+            while (above + tally[r] <= upperFromTop)
+                above += tally[r--];
+            double atUpper = sorted[r];
+            while (above + tally[r] <= upperFromTop + 1)
+                above += tally[r--];
+            double atLowerValue = sorted[r];
+            return atLowerValue + (fraction * (atUpper - atLowerValue));
+        }
+
+        int lowerFromTop = n - 1 - lower;
+        while (above + tally[r] <= lowerFromTop)
+            above += tally[r--];
+        return sorted[r];
+    }
+
     private static double AtRank(double[] sorted, double quantile, double z)
     {
         int n = sorted.Length;

@@ -45,7 +45,7 @@ public static class CircleProbability
     private const double TailLength = 40.0;
 
     /// <summary>First trapezoid step in s.</summary>
-    private const double InitialStep = 0.5;
+    internal const double InitialStep = 0.5;
 
     /// <summary>Step halvings allowed (final step 2⁻¹³; convergence normally needs 3–5).</summary>
     private const int MaximumHalvings = 12;
@@ -105,32 +105,32 @@ public static class CircleProbability
     internal static double ByQuadrature(double rho, double q, bool complement)
     {
         double halfRhoSquare = rho * rho / 2.0;
-        double end = Math.Asinh(1.0 / q) + TailLength;
-        double Integrand(double s)
+        var nodes = CircleQuadratureNodes.For(q, Math.Asinh(1.0 / q) + TailLength);
+
+        // Integrand f(h)·q·cosh s/(1 + q²sinh²s), f = 1 − exp(−ρ²/2h) (or exp(−ρ²/2h) for the complement); the
+        // s-dependent factors come from the node table. Node 0 has weight ½ in the trapezoid sum.
+        // Added node by node into the running sum, in the order of the direct rule.
+        void AddLevel(ref double total, CircleQuadratureNodes.Level level, int from)
         {
-            double qSinh = q * Math.Sinh(s);
-            double qCosh = q * Math.Cosh(s);
-            double denominator = 1.0 + (qSinh * qSinh);
-            double h = qCosh * qCosh / denominator;
-            double f = complement ? Math.Exp(-halfRhoSquare / h) : -AccurateElementary.ExpMinusOne(-halfRhoSquare / h);
-            return f * qCosh / denominator;
+            double[] qCosh = level.QCosh, denominator = level.Denominator, h = level.H;
+            for (int i = from; i < h.Length; i++)
+            {
+                double f = complement ? Math.Exp(-halfRhoSquare / h[i]) : -AccurateElementary.ExpMinusOne(-halfRhoSquare / h[i]);
+                total += f * qCosh[i] / denominator[i];
+            }
         }
 
+        var level0 = nodes[0];
+        double f0 = complement ? Math.Exp(-halfRhoSquare / level0.H[0]) : -AccurateElementary.ExpMinusOne(-halfRhoSquare / level0.H[0]);
         double step = InitialStep;
-        double sum = Integrand(0.0) / 2.0;
-        for (int k = 1; k * step <= end; k++)
-        {
-            sum += Integrand(k * step);
-        }
+        double sum = f0 * level0.QCosh[0] / level0.Denominator[0] / 2.0;
+        AddLevel(ref sum, level0, 1);
 
         double estimate = sum * step;
         for (int halving = 0; halving < MaximumHalvings; halving++)
         {
             step /= 2.0;
-            for (int k = 1; k * step <= end; k += 2)
-            {
-                sum += Integrand(k * step);
-            }
+            AddLevel(ref sum, nodes[halving + 1], 0);
 
             double refined = sum * step;
             bool converged = Math.Abs(refined - estimate) <= QuadratureRelativeTolerance * refined;

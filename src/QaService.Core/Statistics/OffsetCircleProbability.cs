@@ -75,7 +75,7 @@ public static class OffsetCircleProbability
             return double.Hypot(muE, muN) <= radiusMetres ? 1.0 : 0.0;
         if (minor < SingularAxisRatio * major)
             return OneDimensional(radiusMetres, muE, muN, varE, varN, cov, major);
-        return ByQuadrature(radiusMetres, muE, muN, varE, varN, cov);
+        return ByQuadrature(radiusMetres, distribution);
     }
 
     /// <summary>Mass on the line X = μ + σ·Z·e (e the major axis): |X|² ≤ r² is a quadratic inequality in Z.</summary>
@@ -105,40 +105,41 @@ public static class OffsetCircleProbability
         return 0.5 * (SpecialFunctions.Erf(upper * InverseSqrtTwo) - SpecialFunctions.Erf(lower * InverseSqrtTwo));
     }
 
-    private static double ByQuadrature(double r, double muE, double muN, double varE, double varN, double cov)
+    private static double ByQuadrature(double r, BivariateNormal distribution)
     {
+        var (muE, muN, varE, varN, cov) = distribution;
         double det = (varE * varN) - (cov * cov);
         // Σ⁻¹ = [[varN, −cov], [−cov, varE]] / det.
         double iEE = varN / det, iNN = varE / det, iEN = -cov / det;
         double c = (iEE * muE * muE) + (2.0 * iEN * muE * muN) + (iNN * muN * muN);
         double expHalfC = Math.Exp(-c / 2.0);
-        double Radial(double theta)
+        var table = OffsetCircleNodes.For(distribution, iEE, iNN, iEN, c);
+
+        // The radial integral in direction θ; the θ-only terms come from the node table (see OffsetCircleNodes).
+        void AddLevel(ref double total, OffsetCircleNodes.Level level)
         {
-            double ue = Math.Cos(theta), un = Math.Sin(theta);
-            double a = (iEE * ue * ue) + (2.0 * iEN * ue * un) + (iNN * un * un);
-            double b = (ue * ((iEE * muE) + (iEN * muN))) + (un * ((iEN * muE) + (iNN * muN)));
-            double m = b / a;
-            double k = Math.Max(c - (b * m), 0.0);
-            double s = Math.Sqrt(a / 2.0);
-            double first = (expHalfC - Math.Exp(-(k + (a * (r - m) * (r - m))) / 2.0)) / a;
-            double erfPair = m >= 0.0
-                ? SpecialFunctions.Erf(s * (r - m)) + SpecialFunctions.Erf(s * m)
-                : SpecialFunctions.Erfc(-s * m) - SpecialFunctions.Erfc(s * (r - m));
-            double second = m == 0.0 ? 0.0 : Math.Exp(-k / 2.0) * m * Math.Sqrt(Math.PI / (2.0 * a)) * erfPair;
-            return first + second;
+            double[] aAt = level.A, mAt = level.M, kAt = level.K, sAt = level.S, erfAtMean = level.ErfAtMean, secondFactor = level.SecondFactor;
+            for (int i = 0; i < aAt.Length; i++)
+            {
+                double a = aAt[i], m = mAt[i], k = kAt[i], s = sAt[i];
+                double first = (expHalfC - Math.Exp(-(k + (a * (r - m) * (r - m))) / 2.0)) / a;
+                double erfPair = m >= 0.0
+                    ? SpecialFunctions.Erf(s * (r - m)) + erfAtMean[i]
+                    : erfAtMean[i] - SpecialFunctions.Erfc(s * (r - m));
+                double second = m == 0.0 ? 0.0 : secondFactor[i] * erfPair;
+                total += first + second;
+            }
         }
 
         double scale = 1.0 / (2.0 * Math.PI * Math.Sqrt(det));
         int nodes = InitialNodes;
         double sum = 0.0;
-        for (int i = 0; i < nodes; i++)
-            sum += Radial(2.0 * Math.PI * i / nodes);
+        AddLevel(ref sum, table[0]);
         double estimate = scale * sum * (2.0 * Math.PI / nodes);
-        while (nodes < MaximumNodes)
+        for (int level = 1; nodes < MaximumNodes; level++)
         {
             // Add the midpoints: the new nodes of the doubled rule.
-            for (int i = 0; i < nodes; i++)
-                sum += Radial(2.0 * Math.PI * (i + 0.5) / nodes);
+            AddLevel(ref sum, table[level]);
             nodes *= 2;
             double refined = scale * sum * (2.0 * Math.PI / nodes);
             bool converged = Math.Abs(refined - estimate) <= RelativeTolerance * Math.Max(refined, 1e-3);

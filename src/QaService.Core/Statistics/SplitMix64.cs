@@ -21,6 +21,8 @@ internal struct SplitMix64(ulong seed)
         }
     }
 
-    /// <summary>Uniform integer in [0, count) by Lemire's multiply-shift (bias below count/2⁶⁴, negligible here).</summary>
-    public int NextIndex(int count) => (int)(((UInt128)Next() * (ulong)count) >> 64);
+    /// <summary>Uniform integer in [0, count) by Lemire's multiply-shift (bias below count/2⁶⁴, negligible here): the high
+    /// 64 bits of the 128-bit product, by <see cref="Math.BigMul(ulong, ulong, out ulong)"/> (one hardware multiply, same value
+    /// as the UInt128 product shifted right by 64).</summary>
+    public int NextIndex(int count) => (int)Math.BigMul(Next(), (ulong)count, out _);
 }
