@@ -1,3 +1,5 @@
+using System.Collections.Concurrent;
+
 namespace QaService.Core.Statistics;
 
 /// <summary>
@@ -66,64 +68,150 @@ public static class BootstrapInterval
 
         var random = new SplitMix64(seed);
         var tally = new int[n];
+        // Each resample's estimate is fixed by the two ranks it interpolates between; small samples count resamples per
+        // rank pair (at most n² pairs, a few dozen in practice) and sort only the distinct estimates, not all resamples.
+        bool countPairs = n <= PairCountingLimit;
+        var pairCounts = countPairs ? new int[n * n] : null;
         var estimates = new double[resamples];
+        // Small samples: the draws depend only on (n, resamples, seed), so their per-index counts are computed once per
+        // process and shared (exactly the same draws, in the same order, as drawing them here).
+        var drawn = countPairs ? DrawCounts(n, resamples, seed) : null;
         for (int b = 0; b < resamples; b++)
         {
-            Array.Clear(tally);
-            for (int i = 0; i < n; i++)
-                tally[positionOf[random.NextIndex(n)]]++;
-            estimates[b] = InterpolatedOrderStatistic(sorted, tally, lower, fraction);
+            if (drawn is not null)
+            {
+                int offset = b * n;
+                for (int r = 0; r < n; r++)
+                    tally[r] = drawn[offset + rank[r]];
+            }
+            else
+            {
+                Array.Clear(tally);
+                for (int i = 0; i < n; i++)
+                    tally[positionOf[random.NextIndex(n)]]++;
+            }
+
+            var (atLower, atUpper) = OrderStatisticRanks(tally, lower, fraction);
+            if (countPairs)
+                pairCounts![(atLower * n) + atUpper]++;
+            else
+                estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
         }
 
-        Array.Sort(estimates);
+        if (countPairs)
+            SortedFromPairCounts(sorted, pairCounts!, lower, fraction, estimates);
+        else
+            Array.Sort(estimates);
         return (Percentile.LinearInterpolationOfSorted(estimates, tail), Percentile.LinearInterpolationOfSorted(estimates, 1.0 - tail));
     }
 
     /// <summary>
-    /// Type-7 quantile of a resample given as counts per rank of <paramref name="sorted"/>: the 0-based order statistics
-    /// <paramref name="lower"/> and lower + 1 of the resample, interpolated by <paramref name="fraction"/>.
+    /// Largest sample whose resamples are counted per rank pair (n² counters, 16 KB at the limit) and whose draws are
+    /// cached (n·resamples bytes, 128 KB at the limit with the default 2,000 resamples; a count per index fits a byte).
     /// </summary>
-    private static double InterpolatedOrderStatistic(double[] sorted, int[] tally, int lower, double fraction)
-    {
-        if (2 * lower >= sorted.Length)
-            return InterpolatedOrderStatisticFromTop(sorted, tally, lower, fraction);
-        int seen = 0, r = 0;
-        while (seen + tally[r] <= lower)
-            seen += tally[r++];
-        double atLower = sorted[r];
-        if (fraction == 0.0 || lower + 1 >= sorted.Length)
-            return atLower;
-        while (seen + tally[r] <= lower + 1)
-            seen += tally[r++];
-        return atLower + (fraction * (sorted[r] - atLower));
-    }
+    private const int PairCountingLimit = 64;
 
-    /// <summary>Type-7 interpolated order statistic at rank h + z·√(np(1 − p)), clamped to the sample (large-n limit).</summary>
+    /// <summary>Most (n, resamples, seed) draw tables kept (at most ~8 MB with the default resamples).</summary>
+    private const int DrawCacheEntries = 64;
+
+    private static readonly ConcurrentDictionary<(int N, int Resamples, ulong Seed), byte[]> DrawCache = new();
+
     /// <summary>
-    /// <see cref="InterpolatedOrderStatistic"/> for upper quantiles, walking the tally down from the largest value: the
-    /// same two order statistics and the same interpolation expression, in fewer steps (for the 95th percentile of 24
-    /// values, 3 instead of 22).
+    /// For resample b and sample index i, element b·n + i: how many of resample b's n draws picked index i, drawn with
+    /// <see cref="SplitMix64.NextIndex"/> from <paramref name="seed"/> in the order of the resampling loop. Cached.
     /// </summary>
-    private static double InterpolatedOrderStatisticFromTop(double[] sorted, int[] tally, int lower, double fraction)
+    private static byte[] DrawCounts(int n, int resamples, ulong seed)
     {
-        int n = sorted.Length;
-        int r = n - 1, above = 0; // above: resample members at ranks > r
-        if (fraction != 0.0 && lower + 1 < n)
+        var key = (n, resamples, seed);
+        if (DrawCache.TryGetValue(key, out var cached))
+            return cached;
+        var random = new SplitMix64(seed);
+        var counts = new byte[n * resamples];
+        for (int b = 0, offset = 0; b < resamples; b++, offset += n)
         {
-            int upperFromTop = n - 2 - lower; // 0-based position of order statistic lower + 1, counted from the top
-            while (above + tally[r] <= upperFromTop)
-                above += tally[r--];
-            double atUpper = sorted[r];
-            while (above + tally[r] <= upperFromTop + 1)
-                above += tally[r--];
-            double atLowerValue = sorted[r];
-            return atLowerValue + (fraction * (atUpper - atLowerValue));
+            for (int i = 0; i < n; i++)
+                counts[offset + random.NextIndex(n)]++;
         }
 
-        int lowerFromTop = n - 1 - lower;
-        while (above + tally[r] <= lowerFromTop)
-            above += tally[r--];
-        return sorted[r];
+        if (DrawCache.Count < DrawCacheEntries)
+            DrawCache.TryAdd(key, counts);
+        return counts;
+    }
+
+    /// <summary>
+    /// Fills <paramref name="estimates"/> with the estimate of every resample in ascending order, from the number of
+    /// resamples per (lower rank, upper rank) pair: the same multiset of values, each computed by the same expression, as
+    /// sorting the per-resample estimates.
+    /// </summary>
+    private static void SortedFromPairCounts(double[] sorted, int[] pairCounts, int lower, double fraction, double[] estimates)
+    {
+        int n = sorted.Length, distinct = 0;
+        foreach (int count in pairCounts)
+            distinct += count > 0 ? 1 : 0;
+        var values = new double[distinct];
+        var counts = new int[distinct];
+        for (int pair = 0, j = 0; pair < pairCounts.Length; pair++)
+        {
+            if (pairCounts[pair] == 0)
+                continue;
+            values[j] = Interpolate(sorted, pair / n, pair % n, lower, fraction);
+            counts[j++] = pairCounts[pair];
+        }
+
+        Array.Sort(values, counts);
+        for (int j = 0, at = 0; j < distinct; j++)
+        {
+            estimates.AsSpan(at, counts[j]).Fill(values[j]);
+            at += counts[j];
+        }
+    }
+
+    /// <summary>The type-7 interpolation between the order statistics found by <see cref="OrderStatisticRanks"/>.</summary>
+    private static double Interpolate(double[] sorted, int atLower, int atUpper, int lower, double fraction)
+    {
+        double lowerValue = sorted[atLower];
+        if (fraction == 0.0 || lower + 1 >= sorted.Length)
+            return lowerValue;
+        return lowerValue + (fraction * (sorted[atUpper] - lowerValue));
+    }
+
+    /// <summary>
+    /// Ranks in <c>sorted</c> of the 0-based order statistics <paramref name="lower"/> and lower + 1 of a resample given
+    /// as counts per rank (the second equals the first when no interpolation is needed). Upper quantiles walk the tally
+    /// down from the largest value (for the 95th percentile of 24 values, 3 steps instead of 22).
+    /// </summary>
+    private static (int AtLower, int AtUpper) OrderStatisticRanks(int[] tally, int lower, double fraction)
+    {
+        int n = tally.Length;
+        bool interpolate = fraction != 0.0 && lower + 1 < n;
+        if (2 * lower < n)
+        {
+            int seen = 0, r = 0;
+            while (seen + tally[r] <= lower)
+                seen += tally[r++];
+            int atLower = r;
+            if (!interpolate)
+                return (atLower, atLower);
+            while (seen + tally[r] <= lower + 1)
+                seen += tally[r++];
+            return (atLower, r);
+        }
+
+        int top = n - 1, above = 0; // above: resample members at ranks > top
+        if (interpolate)
+        {
+            int upperFromTop = n - 2 - lower; // 0-based position of order statistic lower + 1, counted from the largest
+            while (above + tally[top] <= upperFromTop)
+                above += tally[top--];
+            int atUpper = top;
+            while (above + tally[top] <= upperFromTop + 1)
+                above += tally[top--];
+            return (top, atUpper);
+        }
+
+        while (above + tally[top] <= n - 1 - lower)
+            above += tally[top--];
+        return (top, top);
     }
 
     private static double AtRank(double[] sorted, double quantile, double z)

@@ -35,6 +35,8 @@ public sealed class BootstrapTallyTests
     [Theory]
     [InlineData(24)]
     [InlineData(2)]
+    [InlineData(64)]
+    [InlineData(65)]
     [InlineData(137)]
     [InlineData(1000)]
     public void Tally_gives_the_same_bounds_as_sorting_every_resample(int n)
@@ -42,6 +44,10 @@ public sealed class BootstrapTallyTests
         var values = Sample(n, 99);
         Assert.Equal(Textbook(values, 0.95, 0.95, 500, 7), BootstrapInterval.OfQuantile(values, 0.95, 0.95, 500, 7));
         Assert.Equal(Textbook(values, 0.5, 0.9, 300, 11), BootstrapInterval.OfQuantile(values, 0.5, 0.9, 300, 11));
+        // Quantiles 0 and 1 (no interpolation) and a lower one, walked from the bottom of the tally.
+        Assert.Equal(Textbook(values, 1.0, 0.8, 200, 5), BootstrapInterval.OfQuantile(values, 1.0, 0.8, 200, 5));
+        Assert.Equal(Textbook(values, 0.0, 0.8, 200, 5), BootstrapInterval.OfQuantile(values, 0.0, 0.8, 200, 5));
+        Assert.Equal(Textbook(values, 0.1, 0.95, 200, 3), BootstrapInterval.OfQuantile(values, 0.1, 0.95, 200, 3));
     }
 
     [Fact]
