@@ -27,7 +27,7 @@ namespace QaService.Core.Geodesy;
 /// </para>
 /// <para>Instances are immutable and thread-safe.</para>
 /// </remarks>
-public sealed class TransverseMercator : IMapProjection
+public sealed partial class TransverseMercator : IMapProjection
 {
     /// <inheritdoc />
     public string MethodName => "Transverse Mercator";
@@ -141,11 +141,23 @@ public sealed class TransverseMercator : IMapProjection
             throw new ArgumentException("Output spans must be at least as long as the input spans.", nameof(eastingsMetres));
         }
 
-        for (int i = 0; i < latitudesDegrees.Length; i++)
+        // Blocks of four go through the vector kernel (TransverseMercator.Batch.cs); a block it declines (pole, outside the
+        // domain, longitude to reduce) and the tail go through the scalar method, which raises any error at its element.
+        int count = latitudesDegrees.Length;
+        int i = 0;
+        while (i < count)
         {
-            ProjectedCoordinate en = Forward(latitudesDegrees[i], longitudesDegrees[i]);
-            eastingsMetres[i] = en.EastingMetres;
-            northingsMetres[i] = en.NorthingMetres;
+            if (VectorKernelAvailable)
+            {
+                i += ForwardVector(latitudesDegrees[i..], longitudesDegrees[i..count], eastingsMetres[i..], northingsMetres[i..]);
+            }
+
+            for (int stop = Math.Min(i + System.Runtime.Intrinsics.Vector256<double>.Count, count); i < stop; i++)
+            {
+                ProjectedCoordinate en = Forward(latitudesDegrees[i], longitudesDegrees[i]);
+                eastingsMetres[i] = en.EastingMetres;
+                northingsMetres[i] = en.NorthingMetres;
+            }
         }
     }
 
