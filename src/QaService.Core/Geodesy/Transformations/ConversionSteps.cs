@@ -1,3 +1,4 @@
+using System.Buffers;
 using QaService.Core.Geodesy.Catalog;
 
 namespace QaService.Core.Geodesy.Transformations;
@@ -38,10 +39,62 @@ public sealed class ForwardProjectionStep(IMapProjection projection, LinearUnit 
 
     public double AccuracyMetres => 0;
 
+    /// <summary>Points per call of the batch projection (its output buffers are pooled at this size).</summary>
+    private const int BatchPoints = 1024;
+
     public void Apply(CoordinateBuffer points)
     {
         var k = 1.0 / unit.MetresPerUnit;
-        for (var i = 0; i < points.Count; i++)
+        if (projection is TransverseMercator transverseMercator)
+        {
+            ApplyBatch(transverseMercator, points, k);
+            return;
+        }
+
+        ApplyPointByPoint(points, 0, points.Count, k);
+    }
+
+    /// <summary>
+    /// Transverse Mercator through its batch (vectorised) forward method, a block at a time; a block holding a point
+    /// outside the domain is redone point by point, so such points alone become NaN.
+    /// </summary>
+    private void ApplyBatch(TransverseMercator transverseMercator, CoordinateBuffer points, double k)
+    {
+        var eastings = ArrayPool<double>.Shared.Rent(BatchPoints);
+        var northings = ArrayPool<double>.Shared.Rent(BatchPoints);
+        try
+        {
+            for (var start = 0; start < points.Count; start += BatchPoints)
+            {
+                var length = Math.Min(BatchPoints, points.Count - start);
+                try
+                {
+                    transverseMercator.Forward(points.First.AsSpan(start, length), points.Second.AsSpan(start, length), eastings, northings);
+                }
+                catch (ArgumentOutOfRangeException)
+                {
+                    ApplyPointByPoint(points, start, length, k);
+                    continue;
+                }
+
+                for (var i = 0; i < length; i++)
+                {
+                    points.First[start + i] = eastings[i] * k;
+                    points.Second[start + i] = northings[i] * k;
+                    points.Third[start + i] *= k;
+                }
+            }
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(eastings);
+            ArrayPool<double>.Shared.Return(northings);
+        }
+    }
+
+    private void ApplyPointByPoint(CoordinateBuffer points, int start, int length, double k)
+    {
+        for (var i = start; i < start + length; i++)
         {
             try
             {
