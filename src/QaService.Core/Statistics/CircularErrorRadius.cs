@@ -33,7 +33,8 @@ public static class CircularErrorRadius
     /// <returns>
     /// The radius in the sigmas' unit. Closed forms where they exist: both sigmas 0 → 0; one sigma 0 →
     /// σ·Φ⁻¹((1 + p)/2) = σ√2·erf⁻¹(p) (one-dimensional, LE-type); σ₁ = σ₂ = σ → σ·sqrt(−2 ln(1 − p)) (Rayleigh).
-    /// Otherwise MathNet Brent root finding on ln r between the analytic bounds
+    /// Otherwise Newton's method on ln r (derivative from the same quadrature, bisection whenever a step would leave the
+    /// bracket) between the analytic bounds
     /// max(σ₁√2·erf⁻¹(p), σ₂·sqrt(−2 ln(1 − p))) ≤ r ≤ σ₁·sqrt(−2 ln(1 − p)) (σ₁ ≥ σ₂), the probability being
     /// monotone in each sigma. Relative accuracy 1e-9 (see remarks).
     /// </returns>
