@@ -10,6 +10,7 @@
 #
 # Needs: .NET SDK, proj-bin (cs2cs), python3, curl, GNU time (/usr/bin/time), wrk (apt-get install -y wrk).
 # The machine may be shared: every comparison runs its two sides back to back, best of RUNS (env, default 3).
+# PARTS (env, default abc) picks the parts to run, e.g. PARTS=b for the upload comparison only.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 TPOINTS=${1:-200000}
@@ -17,6 +18,7 @@ FIXES=${2:-400000}
 MARKS=${3:-2000}
 WRK_SECONDS=${4:-20}
 RUNS=${RUNS:-3}
+PARTS=${PARTS:-abc}
 PORT=${BENCH_PORT:-5098}
 work=$(mktemp -d)
 pid=""; timepid=""
@@ -63,6 +65,7 @@ PY
 cs2cs -f %.9f EPSG:32633 EPSG:4979 <"$work/fix-plan.txt" | awk 'BEGIN {print "id,mark,lat,lon,h"} {printf "%s,%s,%s,%s,%s\n", $4, $5, $1, $2, $3}' >"$work/fixes.csv"
 awk -F, 'NR > 1 {print $3, $4, $5}' "$work/fixes.csv" >"$work/u-points.txt"
 
+if [[ $PARTS == *a* ]]; then
 echo "== (a) POST /v1/transform, $TPOINTS points, EPSG:4326 -> EPSG:32633 (best of $RUNS)"
 start_service transform
 curl -sf -H 'Content-Type: application/json' --data-binary @"$work/t-body.json" "http://127.0.0.1:$PORT/v1/transform" -o /dev/null # warm-up
@@ -81,7 +84,9 @@ worst = max(max(abs(float(l.split()[0]) - p["e"]), abs(float(l.split()[1]) - p["
 print(f"   largest |difference| service vs cs2cs: {worst:.2e} m over {len(api)} points")
 PY
 echo "   cs2cs ${a_cs2cs} s, service ${a_api} s, ratio service/cs2cs $(ratio "$a_api" "$a_cs2cs")"
+fi
 
+if [[ $PARTS == *b* ]]; then
 echo "== (b) multipart CSV upload, $FIXES fixes, $MARKS marks paired by id, full JSON report (best of $RUNS)"
 options='{"marks":{"crs":"EPSG:32633","heights":"ellipsoidal"},"fixes":{"crs":"EPSG:4979","heights":"ellipsoidal"},"spec":{"standard":"nssda","horizontal":1.0,"vertical":1.0}}'
 peak=0
@@ -97,8 +102,11 @@ done
 b_cs2cs=$(cat "$work"/b-cs2cs-* | best); b_api=$(cat "$work"/b-api-* | best)
 python3 -c "import json,sys; r=json.load(open(sys.argv[1])); print('   paired', r['counts']['paired'], 'verdict', r['verdict'], 'report', sum(1 for _ in open(sys.argv[1], 'rb').read()), 'bytes')" "$work/report.json"
 echo "   cs2cs ${b_cs2cs} s, service ${b_api} s, ratio service/cs2cs $(ratio "$b_api" "$b_cs2cs"); service peak RSS (VmHWM, largest of $RUNS runs) ${peak} MiB"
+fi
 
-if command -v wrk >/dev/null; then
+if [[ $PARTS != *c* ]]; then
+  :
+elif command -v wrk >/dev/null; then
   echo "== (c) small JSON assessments (24 marks, 24 fixes) under wrk, ${WRK_SECONDS} s, 2 threads, 32 connections"
   python3 - "$work/small.json" <<'PY'
 import json, sys
