@@ -32,7 +32,11 @@ public sealed record FramedPoint(
     bool HasHeight,
     double? SigmaHorizontalMetres,
     double? SigmaVerticalMetres,
-    DateTimeOffset? Time);
+    DateTimeOffset? Time)
+{
+    /// <summary>Settable inside Core so frame alignment moves a fix in place rather than copying a million points.</summary>
+    public GeodeticCoordinate Geodetic { get; internal set; } = Geodetic;
+}
 
 /// <summary>The required accuracy after validation (metres, in the measure of <paramref name="Standard"/>).</summary>
 /// <param name="Standard">Canonical standard id (<see cref="Standards.AccuracyStandards"/>).</param>
