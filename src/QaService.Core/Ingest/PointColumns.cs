@@ -11,13 +11,13 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
 {
     private const long NoTime = long.MinValue;
 
-    private readonly List<long> rows = [];
-    private readonly List<string?> ids = [];
-    private readonly List<string?> marks = [];
+    private readonly ChunkedColumn<long> rows = new();
+    private readonly ChunkedColumn<string?> ids = new();
+    private readonly ChunkedColumn<string?> marks = new();
     private readonly Dictionary<string, string> markNames = new(StringComparer.Ordinal);
     // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
-    private readonly List<double>?[] numbers = new List<double>?[NumberFields];
-    private List<long>? timeTicks;
+    private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
+    private ChunkedColumn<long>? timeTicks;
     private const int NumberFields = 10;
 
     public int Count => rows.Count;
@@ -43,7 +43,7 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
         AddNumber(9, index, point.SigmaV);
         if (point.Time is { } time)
         {
-            timeTicks ??= Filled(index, NoTime);
+            timeTicks ??= ChunkedColumn<long>.Filled(index, NoTime);
             timeTicks.Add(time.UtcTicks);
         }
         else
@@ -53,19 +53,11 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     private void AddNumber(int field, int index, double? value)
     {
         if (value is { } v)
-            (numbers[field] ??= Filled(index, double.NaN)).Add(v);
+            (numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(v);
         else
             numbers[field]?.Add(double.NaN);
     }
 
-    /// <summary>A new column whose first <paramref name="count"/> points do not give the field.</summary>
-    private static List<T> Filled<T>(int count, T absent)
-    {
-        var column = new List<T>(Math.Max(count * 2, 4));
-        for (var i = 0; i < count; i++)
-            column.Add(absent);
-        return column;
-    }
 
     /// <summary>Multiplies every length (not lat/lon) of every point by <paramref name="factor"/> (a file length unit to the CRS unit).</summary>
     public void ScaleLengths(double factor)
