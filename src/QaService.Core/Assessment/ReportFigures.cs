@@ -40,7 +40,23 @@ public static class ReportFigures
         }
 
         var approximations = CircularErrorApproximations.For(meanSquareE, meanSquareN, SampleMoments.MeanProductAboutZero(dE, dN), horizontal);
-        return new Blocks(standard, confidence, approximations, OffsetRadii.Compute(dE, dN, dU), Sensitivity(included, horizontal, vertical, checks));
+        return new Blocks(standard, confidence, approximations, OffsetModelOrNull(dE, dN, dU), Sensitivity(included, horizontal, vertical, checks));
+    }
+
+    /// <summary>
+    /// The offset model is descriptive (no verdict depends on it): if its root finding cannot bracket a
+    /// radius for some extreme shape of data, the block is left out rather than failing the whole report.
+    /// </summary>
+    private static OffsetRadii? OffsetModelOrNull(double[] dE, double[] dN, double[] dU)
+    {
+        try
+        {
+            return OffsetRadii.Compute(dE, dN, dU);
+        }
+        catch (MathNet.Numerics.NonConvergenceException)
+        {
+            return null;
+        }
     }
 
     private static OutlierSensitivity? Sensitivity(IReadOnlyList<Residual> included, HorizontalAccuracy horizontal, VerticalAccuracy? vertical, IReadOnlyList<CheckResult> checks)

@@ -17,6 +17,22 @@ namespace QaService.Core.Statistics;
 public static class OffsetErrorRadius
 {
     private const double RootTolerance = 1e-12;
+
+    /// <summary>
+    /// Spread below which the error is a constant offset to double precision: with σ ≤ 1e-10·|μ| the radius
+    /// is |μ| to better than 1e-10 relative (it lies within |μ| ± a few σ), and the bracket [0, |μ| + kσ]
+    /// would round to |μ| itself, so no root could be bracketed. Identical residuals (zero spread about
+    /// their mean, up to rounding noise) land here.
+    /// </summary>
+    private const double NegligibleSpreadRatio = 1e-10;
+
+    /// <summary>
+    /// Spread below which the circle is linearised along the offset: |X| = |μ| + u·(X − μ) + q with
+    /// u = μ/|μ| and 0 ≤ q ≤ σmax²·χ²/(2|μ|), so r = |μ| + σᵤ·Φ⁻¹(p) with σᵤ² = uᵀΣu, error at most
+    /// σmax·(σmax/|μ|)·χ²/2 ≈ 5e-5·σmax·χ² here (common first-order expansion of the norm). The quadrature of
+    /// <see cref="OffsetCircleProbability"/> is built for moderate |μ|/σ and loses its bracket far beyond it.
+    /// </summary>
+    private const double LinearisedSpreadRatio = 1e-4;
     private const int RootMaximumIterations = 300;
 
     /// <summary>Radius r (m) with P(|X| ≤ r) = p for the plane error <paramref name="distribution"/>.</summary>
@@ -28,12 +44,21 @@ public static class OffsetErrorRadius
         RequireOpenProbability(probability);
         var (major, _) = PrincipalAxes.FromSecondMoments(distribution.VarianceEast, distribution.VarianceNorth, distribution.CovarianceEastNorth);
         double offset = double.Hypot(distribution.MeanEast, distribution.MeanNorth);
-        if (major == 0.0)
+        if (major <= NegligibleSpreadRatio * offset || major == 0.0)
             return offset;
+        if (major <= LinearisedSpreadRatio * offset)
+            return LinearisedCircular(probability, distribution, offset);
         // P(|X| ≤ |μ| + σmax·sqrt(−2 ln(1 − p))) ≥ P(|X − μ| ≤ σmax·sqrt(−2 ln(1 − p))) ≥ p: an upper bracket.
         double upper = offset + (major * Math.Sqrt(-2.0 * Math.Log(1.0 - probability))) + (1e-9 * major);
         return Brent.FindRoot(r => OffsetCircleProbability.Probability(Math.Max(r, 0.0), distribution) - probability,
             0.0, upper, RootTolerance * upper, RootMaximumIterations);
+    }
+
+    private static double LinearisedCircular(double probability, BivariateNormal distribution, double offset)
+    {
+        double ux = distribution.MeanEast / offset, uy = distribution.MeanNorth / offset;
+        double radialVariance = (ux * ux * distribution.VarianceEast) + (2.0 * ux * uy * distribution.CovarianceEastNorth) + (uy * uy * distribution.VarianceNorth);
+        return offset + (Math.Sqrt(Math.Max(radialVariance, 0.0)) * MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, probability));
     }
 
     /// <summary>P(|X| ≤ r) for X ~ N(μ, σ²): Φ((r − μ)/σ) − Φ((−r − μ)/σ).</summary>
@@ -57,7 +82,7 @@ public static class OffsetErrorRadius
         if (!(sigmaMetres >= 0.0 && double.IsFinite(sigmaMetres)) || !double.IsFinite(meanMetres))
             throw new ArgumentException($"σ = {sigmaMetres}, μ = {meanMetres}: σ must be finite and ≥ 0, μ finite.", nameof(sigmaMetres));
         double offset = Math.Abs(meanMetres);
-        if (sigmaMetres == 0.0)
+        if (sigmaMetres == 0.0 || sigmaMetres <= NegligibleSpreadRatio * offset)
             return offset;
         if (offset == 0.0)
             return sigmaMetres * Math.Sqrt(2.0) * SpecialFunctions.ErfInv(probability);
