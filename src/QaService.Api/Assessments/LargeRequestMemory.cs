@@ -9,7 +9,7 @@ namespace QaService.Api.Assessments;
 /// only reclaimed by a full collection, which the collector defers while the heap grows. Yielding unwinds those
 /// frames, and one compacting full collection then returns the memory before the next stage allocates: the
 /// 1,000,000-fix upload (bench/upload-million.sh) held its parsed columns and validated points through the
-/// assessment and peaked at 537 MiB; see DEVELOPERS.md "Performance" for the figure with this in place.
+/// assessment and peaked at 537 MiB, with this 465–477 MiB (DEVELOPERS.md "Performance").
 /// </summary>
 internal static class LargeRequestMemory
 {
