@@ -58,18 +58,12 @@ internal static class AssessmentsApi
         ILogger<AssessmentRequest> logger,
         CancellationToken cancellationToken)
     {
-        var (outcome, ingest, problem) = MultipartUploadReader.IsMultipart(request)
-            ? await ValidateUploadAsync(request, uploads, limits.Value, cancellationToken)
-            : await ValidateJsonAsync(request, reader, limits.Value, cancellationToken);
+        // Large uploads: the input is held only inside AssessAsync, so it is garbage once the report exists, and the
+        // report is dropped once serialised: the points, the residuals and the JSON are never all held at once.
+        var (report, problem) = await AssessAsync(request, reader, uploads, limits.Value, clock, cancellationToken);
         if (problem is not null)
             return problem;
-        if (outcome!.Assessment is null)
-            return InputProblems.Invalid(outcome.Errors);
-
-        // Large uploads: every reference to the input and to the report is dropped as soon as it has been used (locals
-        // live across awaits in the state machine), so the points, the residuals and the JSON are never all held at once.
-        AssessmentReport? report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
-        outcome = null;
+        await LargeRequestMemory.ReleaseAsync(report!.Counts.Fixes);
         var header = new ReportHeader(tenant.TenantId, report.Id, report.CreatedAt, report.Title, VerdictText(report));
         var (paired, points) = (report.Counts.Paired, report.Counts.Marks + report.Counts.Fixes);
         var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
@@ -87,6 +81,21 @@ internal static class AssessmentsApi
         AssessmentLog.Created(logger, header.Id, header.Verdict, paired);
         metrics.AssessmentStored(header.Verdict, points);
         return new JsonStreamResult(json, StatusCodes.Status201Created, $"/v1/assessments/{header.Id}");
+    }
+
+    /// <summary>Validates the request and runs the assessment; the validated input is garbage once this returns.</summary>
+    private static async Task<(AssessmentReport? Report, IResult? Problem)> AssessAsync(HttpRequest request, JsonBodyReader<AssessmentRequest> reader,
+        MultipartUploadReader uploads, LimitsOptions limits, TimeProvider clock, CancellationToken cancellationToken)
+    {
+        var (outcome, ingest, problem) = MultipartUploadReader.IsMultipart(request)
+            ? await ValidateUploadAsync(request, uploads, limits, cancellationToken)
+            : await ValidateJsonAsync(request, reader, limits, cancellationToken);
+        if (problem is not null)
+            return (null, problem);
+        if (outcome!.Assessment is null)
+            return (null, InputProblems.Invalid(outcome.Errors));
+        await LargeRequestMemory.ReleaseAsync(outcome.Assessment.Fixes.Count);
+        return (AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest }, null);
     }
 
     /// <summary>Reads and validates a multipart upload; the parsed files are garbage once this returns.</summary>

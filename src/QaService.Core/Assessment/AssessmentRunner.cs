@@ -21,12 +21,13 @@ public static class AssessmentRunner
             markIndex[input.Marks[i].Id] = i;
 
         var (pairs, unpaired) = MarkPairing.Pair(input, markGeocentric);
-        var residuals = pairs
-            .Select(p => ResidualComputation.Compute(p, markGeocentric[markIndex[p.Mark.Id]], ellipsoid,
-                input.ExclusionReasonsByFixId.GetValueOrDefault(p.Fix.Id)))
-            .ToList();
-        var counted = residuals.Where(r => r.Excluded is null).ToList();
+        var residuals = Residuals(input, pairs, markGeocentric, markIndex, ellipsoid);
+        var pairCount = pairs.Count;
+        // Without exclusions every residual counts: the same list, not a copy of a million references.
+        var counted = residuals.Count(r => r.Excluded is not null) == 0 ? residuals : residuals.Where(r => r.Excluded is null).ToList();
         var precision = RepeatOccupations.Precision(counted);
+        // Summarised now, so the pairs can be collected before the statistics and the checks run.
+        var pairing = Summarise(input.Occupations, pairs, precision);
         var included = input.Occupations == OccupationMode.Mean ? RepeatOccupations.Means(counted) : counted;
 
         var horizontal = included.Count == 0
@@ -46,7 +47,7 @@ public static class AssessmentRunner
             input.Title,
             createdAt,
             verdict,
-            new ReportCounts(input.Marks.Count, input.Fixes.Count, pairs.Count, unpaired, residuals.Count - counted.Count),
+            new ReportCounts(input.Marks.Count, input.Fixes.Count, pairCount, unpaired, residuals.Count - counted.Count),
             horizontal,
             vertical,
             input.Occupations == OccupationMode.Mean ? [.. included, .. residuals.Where(r => r.Excluded is not null)] : residuals,
@@ -60,7 +61,21 @@ public static class AssessmentRunner
             figures.Approximations,
             figures.OffsetModel,
             figures.OutlierSensitivity,
-            Summarise(input.Occupations, pairs, precision));
+            pairing);
+    }
+
+    /// <summary>One residual per pair, in pair order, into a list of exactly that size.</summary>
+    private static List<Residual> Residuals(ValidatedAssessment input, IReadOnlyList<MarkFixPair> pairs, GeocentricCoordinate[] markGeocentric,
+        Dictionary<string, int> markIndex, Ellipsoid ellipsoid)
+    {
+        var residuals = new List<Residual>(pairs.Count);
+        var exclusions = input.ExclusionReasonsByFixId;
+        foreach (var p in pairs)
+        {
+            residuals.Add(ResidualComputation.Compute(p, markGeocentric[markIndex[p.Mark.Id]], ellipsoid,
+                exclusions.Count == 0 ? null : exclusions.GetValueOrDefault(p.Fix.Id)));
+        }
+        return residuals;
     }
 
     /// <summary>The pairing block, or null when there is nothing to say beyond the residuals.</summary>

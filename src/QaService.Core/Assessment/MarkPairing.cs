@@ -2,10 +2,10 @@ using QaService.Core.Geodesy;
 
 namespace QaService.Core.Assessment;
 
-/// <summary>A fix and the mark it is tested against.</summary>
+/// <summary>A fix and the mark it is tested against (a value: a large upload holds one per fix, so no object each).</summary>
 /// <param name="PairedBy"><c>id</c> or <c>proximity</c>.</param>
 /// <param name="AlsoWithinRadius">Proximity pairing only: other marks within the radius (the pairing is ambiguous); null when none.</param>
-public sealed record MarkFixPair(FramedPoint Mark, FramedPoint Fix, string PairedBy, IReadOnlyList<string>? AlsoWithinRadius = null);
+public readonly record struct MarkFixPair(FramedPoint Mark, FramedPoint Fix, string PairedBy, IReadOnlyList<string>? AlsoWithinRadius = null);
 
 /// <summary>
 /// Pairs fixes with marks (api-v1: by <c>mark</c> id; otherwise, when pairing is requested, with the

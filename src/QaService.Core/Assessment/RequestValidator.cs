@@ -125,7 +125,7 @@ public static class RequestValidator
         var useHeight = frame.Heights != HeightReference.None;
         for (var i = 0; i < set.Points.Count; i++)
         {
-            var pointPointer = string.Create(CultureInfo.InvariantCulture, $"{pointer}/points/{i}");
+            var pointPointer = new PointPointer(pointer, i);
             var point = set.Points[i];
             if (point is null)
             {
@@ -135,8 +135,8 @@ public static class RequestValidator
             var id = ReadId(point, pointPointer, isMark, i, errors);
             if (!isMark && point.Mark is { } mark && string.IsNullOrWhiteSpace(mark))
                 errors.Add(new($"{pointPointer}/mark", "mark must name a mark id, or be left out"));
-            CheckSigma(point.SigmaH, $"{pointPointer}/sigmaH", errors);
-            CheckSigma(point.SigmaV, $"{pointPointer}/sigmaV", errors);
+            CheckSigma(point.SigmaH, pointPointer, "sigmaH", errors);
+            CheckSigma(point.SigmaV, pointPointer, "sigmaV", errors);
             var geodetic = PointConversion.ToGeodetic(frame.Crs, point, pointPointer, useHeight, errors);
             if (geodetic is null || id is null)
                 continue;
@@ -149,7 +149,7 @@ public static class RequestValidator
         return result;
     }
 
-    private static string? ReadId(PointRecord point, string pointer, bool isMark, int index, List<InputError> errors)
+    private static string? ReadId(PointRecord point, PointPointer pointer, bool isMark, int index, List<InputError> errors)
     {
         if (string.IsNullOrWhiteSpace(point.Id))
         {
@@ -166,10 +166,10 @@ public static class RequestValidator
         return point.Id.Trim();
     }
 
-    private static void CheckSigma(double? sigma, string pointer, List<InputError> errors)
+    private static void CheckSigma(double? sigma, PointPointer point, string field, List<InputError> errors)
     {
         if (sigma is { } s && (!double.IsFinite(s) || s < 0))
-            errors.Add(new(pointer, Invariant($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
+            errors.Add(new($"{point}/{field}", Invariant($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
     }
 
     private static void CheckIds(List<FramedPoint> marks, List<FramedPoint> fixes, List<InputError> errors)

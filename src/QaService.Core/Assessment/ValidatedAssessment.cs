@@ -32,7 +32,27 @@ public sealed record FramedPoint(
     bool HasHeight,
     double? SigmaHorizontalMetres,
     double? SigmaVerticalMetres,
-    DateTimeOffset? Time);
+    DateTimeOffset? Time)
+{
+    /// <summary>Settable inside Core so frame alignment moves a fix in place rather than copying a million points.</summary>
+    public GeodeticCoordinate Geodetic { get; internal set; } = Geodetic;
+
+    // The rarely given fields live in one immutable side object, null when none is given: a point then costs
+    // about 72 bytes instead of 128 (a 1,000,000-fix upload holds every fix through the assessment).
+    private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time);
+
+    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time); }
+
+    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time); }
+
+    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value); }
+
+    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time)
+    {
+        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time) =>
+            sigmaHorizontal is null && sigmaVertical is null && time is null ? null : new(sigmaHorizontal, sigmaVertical, time);
+    }
+}
 
 /// <summary>The required accuracy after validation (metres, in the measure of <paramref name="Standard"/>).</summary>
 /// <param name="Standard">Canonical standard id (<see cref="Standards.AccuracyStandards"/>).</param>

@@ -65,14 +65,22 @@ public sealed class UnitsCheck : IDataCheck
         var gridCrs = input.FixesFrame.Crs.Projection is not null ? input.FixesFrame.Crs : input.MarksFrame.Crs.Projection is not null ? input.MarksFrame.Crs : null;
         if (gridCrs?.Projection is { } projection)
         {
-            double sxy = 0, sxx = 0, syy = 0;
+            // Sums gathered per mark first, so each mark is projected once rather than once per fix.
+            var perMark = new Dictionary<string, (double SumDE, double SumDN, int Count)>(StringComparer.Ordinal);
+            double syy = 0;
             foreach (var r in included)
             {
-                var mark = marksById[r.Mark].Geodetic;
-                var grid = projection.Forward(mark.LatitudeDegrees, mark.LongitudeDegrees);
-                sxy += r.DE * grid.EastingMetres + r.DN * grid.NorthingMetres;
-                sxx += grid.EastingMetres * grid.EastingMetres + grid.NorthingMetres * grid.NorthingMetres;
+                ref var sums = ref System.Runtime.InteropServices.CollectionsMarshal.GetValueRefOrAddDefault(perMark, r.Mark, out _);
+                sums = (sums.SumDE + r.DE, sums.SumDN + r.DN, sums.Count + 1);
                 syy += r.DE * r.DE + r.DN * r.DN;
+            }
+            double sxy = 0, sxx = 0;
+            foreach (var (markId, sums) in perMark)
+            {
+                var mark = marksById[markId].Geodetic;
+                var grid = projection.Forward(mark.LatitudeDegrees, mark.LongitudeDegrees);
+                sxy += sums.SumDE * grid.EastingMetres + sums.SumDN * grid.NorthingMetres;
+                sxx += sums.Count * (grid.EastingMetres * grid.EastingMetres + grid.NorthingMetres * grid.NorthingMetres);
             }
             if (sxx > 0 && syy > 0)
             {

@@ -11,12 +11,13 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
 {
     private const long NoTime = long.MinValue;
 
-    private readonly List<long> rows = [];
-    private readonly List<string?> ids = [];
-    private readonly List<string?> marks = [];
+    private readonly ChunkedColumn<long> rows = new();
+    private readonly ChunkedColumn<string?> ids = new();
+    private readonly ChunkedColumn<string?> marks = new();
     private readonly Dictionary<string, string> markNames = new(StringComparer.Ordinal);
-    private readonly List<double>[] numbers = Enumerable.Range(0, NumberFields).Select(_ => new List<double>()).ToArray();
-    private readonly List<long> timeTicks = [];
+    // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
+    private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
+    private ChunkedColumn<long>? timeTicks;
     private const int NumberFields = 10;
 
     public int Count => rows.Count;
@@ -26,14 +27,37 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
 
     public void Add(long row, PointRecord point)
     {
+        var index = rows.Count;
         rows.Add(row);
         ids.Add(point.Id);
         marks.Add(point.Mark is null ? null : Shared(point.Mark));
-        double?[] values = [point.Lat, point.Lon, point.E, point.N, point.X, point.Y, point.Z, point.H, point.SigmaH, point.SigmaV];
-        for (var i = 0; i < NumberFields; i++)
-            numbers[i].Add(values[i] ?? double.NaN);
-        timeTicks.Add(point.Time?.UtcTicks ?? NoTime);
+        AddNumber(0, index, point.Lat);
+        AddNumber(1, index, point.Lon);
+        AddNumber(2, index, point.E);
+        AddNumber(3, index, point.N);
+        AddNumber(4, index, point.X);
+        AddNumber(5, index, point.Y);
+        AddNumber(6, index, point.Z);
+        AddNumber(7, index, point.H);
+        AddNumber(8, index, point.SigmaH);
+        AddNumber(9, index, point.SigmaV);
+        if (point.Time is { } time)
+        {
+            timeTicks ??= ChunkedColumn<long>.Filled(index, NoTime);
+            timeTicks.Add(time.UtcTicks);
+        }
+        else
+            timeTicks?.Add(NoTime);
     }
+
+    private void AddNumber(int field, int index, double? value)
+    {
+        if (value is { } v)
+            (numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(v);
+        else
+            numbers[field]?.Add(double.NaN);
+    }
+
 
     /// <summary>Multiplies every length (not lat/lon) of every point by <paramref name="factor"/> (a file length unit to the CRS unit).</summary>
     public void ScaleLengths(double factor)
@@ -41,7 +65,8 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
         // e, n, x, y, z, h, sigmaH, sigmaV: every field but lat/lon holds a length.
         for (var field = 2; field < NumberFields; field++)
         {
-            var column = numbers[field];
+            if (numbers[field] is not { } column)
+                continue;
             for (var i = 0; i < column.Count; i++)
                 column[i] *= factor;
         }
@@ -51,8 +76,8 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     {
         get
         {
-            double? At(int field) => numbers[field][index] is var v && double.IsNaN(v) ? null : v;
-            var ticks = timeTicks[index];
+            double? At(int field) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;
+            var ticks = timeTicks?[index] ?? NoTime;
             return new PointRecord(ids[index], marks[index], At(0), At(1), At(2), At(3), At(4), At(5), At(6), At(7), At(8), At(9),
                 ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
         }
