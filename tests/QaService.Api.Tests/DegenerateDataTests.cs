@@ -50,13 +50,33 @@ public sealed class DegenerateDataTests(ServiceHost host) : IClassFixture<Servic
         Assert.True(response.StatusCode == HttpStatusCode.Created, $"{shape}: {(int)response.StatusCode} {await response.Content.ReadAsStringAsync()}");
     }
 
-    [Theory]
-    [InlineData("asprs-2023")]
-    [InlineData("nga-ce90")]
-    public async Task Identical_residuals_under_other_standards_get_a_report(string standard)
+    public static TheoryData<string, string> StandardsAndShapes()
     {
-        var body = Collection(30, _ => (0.012, -0.008, 0.03));
+        var data = new TheoryData<string, string>();
+        foreach (var standard in new[] { "nssda", "asprs-2023", "nmas-1947", "nga-ce90" })
+        foreach (var shape in new[] { "identical", "zero", "single", "east-only", "two" })
+            data.Add(standard, shape);
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(StandardsAndShapes))]
+    public async Task Spread_free_collections_get_a_report_under_every_standard(string standard, string shape)
+    {
+        var body = shape switch
+        {
+            "identical" => Collection(30, _ => (0.012, -0.008, 0.03)),
+            "zero" => Collection(30, _ => (0, 0, 0)),
+            "single" => Collection(1, _ => (0.01, 0.02, 0.03)),
+            "east-only" => Collection(30, i => (0.001 * (i - 15), 0, 0.01)),
+            _ => Collection(2, i => (0.01 * i, -0.01 * i, 0)),
+        };
         body["spec"]!["standard"] = standard;
+        if (standard == "nmas-1947")
+        {
+            body["spec"]!["mapScale"] = 1200;
+            body["spec"]!["contourInterval"] = 0.5;
+        }
         var response = await client.PostJsonAsync(body);
         Assert.True(response.StatusCode == HttpStatusCode.Created, $"{(int)response.StatusCode} {await response.Content.ReadAsStringAsync()}");
     }
