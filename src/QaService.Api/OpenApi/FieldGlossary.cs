@@ -70,7 +70,7 @@ internal static class FieldGlossary
         ["probability"] = "Exact probability held by the DRMS/2DRMS circle for these residuals (0–1); null for other rows.",
         ["validRange"] = "Where the rule holds and how well.",
         ["withinRange"] = "Whether this data set lies in that range.",
-        ["offsetModel"] = "Radii about the mark predicted with the observed mean offset, N(mean, covariance about the mean), exact (noncentral): metres.",
+        ["offsetModel"] = "Radii about the mark predicted with the observed mean offset, N(mean, covariance about the mean), exact (noncentral): metres. Null with fewer than 2 residuals, or for a thin spread (σmin/σmax between 1e-6 and 1e-3) where the quadrature is not validated.",
         ["verticalMean"] = "Mean dU used by the offset model, metres.",
         ["le95"] = "|dU| bound holding 95 % with the observed vertical offset, metres.",
         ["outlierSensitivity"] = "Headline figures with and without the fixes the outliers check flags, metres (flagged fixes stay in the report's figures).",

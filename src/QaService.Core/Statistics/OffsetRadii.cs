@@ -16,7 +16,30 @@ namespace QaService.Core.Statistics;
 /// <param name="Le95">|dU| bound holding 95 %, m.</param>
 public sealed record OffsetRadii(double MeanE, double MeanN, double Cep50, double Ce90, double R95, double? VerticalMean, double? Le90, double? Le95)
 {
-    /// <summary>From the sample means and covariances (divisor n − 1); null when n &lt; 2.</summary>
+    /// <summary>
+    /// Thin but not singular spread (σmin/σmax between <see cref="OffsetCircleProbability.SingularAxisRatio"/> and
+    /// <see cref="ValidatedAxisRatio"/>) with an offset that does not dominate it: the quadrature's accuracy is only
+    /// validated from 1e-3 (see <see cref="OffsetCircleProbability"/>) and its node count grows as the ratio falls
+    /// (about a second per report near 1e-4), so the model is left out rather than given unvalidated.
+    /// </summary>
+    private static bool OutsideValidatedRange(BivariateNormal distribution)
+    {
+        var (major, minor) = PrincipalAxes.FromSecondMoments(distribution.VarianceEast, distribution.VarianceNorth, distribution.CovarianceEastNorth);
+        if (major == 0.0)
+            return false;
+        double ratio = minor / major;
+        double offset = double.Hypot(distribution.MeanEast, distribution.MeanNorth);
+        bool offsetDominates = major <= OffsetDominanceRatio * offset;
+        return ratio >= OffsetCircleProbability.SingularAxisRatio && ratio < ValidatedAxisRatio && !offsetDominates;
+    }
+
+    /// <summary>Smallest σmin/σmax for which the offset quadrature is validated against scipy (1e-12 in P).</summary>
+    public const double ValidatedAxisRatio = 1e-3;
+
+    /// <summary>σmax/|μ| below which <see cref="OffsetErrorRadius"/> linearises along the offset (no quadrature).</summary>
+    private const double OffsetDominanceRatio = 1e-4;
+
+    /// <summary>From the sample means and covariances (divisor n − 1); null when n &lt; 2, or for a thin spread outside the validated range.</summary>
     /// <param name="dEMetres">East residuals, m.</param>
     /// <param name="dNMetres">North residuals, m.</param>
     /// <param name="dUMetres">Vertical residuals, m (may be empty).</param>
@@ -35,6 +58,8 @@ public sealed record OffsetRadii(double MeanE, double MeanN, double Cep50, doubl
             sen += de * dn;
         }
         var distribution = new BivariateNormal(meanE, meanN, see / (n - 1), snn / (n - 1), sen / (n - 1));
+        if (OutsideValidatedRange(distribution))
+            return null;
         double? meanU = null, le90 = null, le95 = null;
         if (dUMetres.Length >= 2)
         {

@@ -26,3 +26,30 @@ public sealed class OffsetRadiusLargeOffsetTests
     public void Circular_with_no_spread_is_the_offset() =>
         Assert.Equal(Math.Sqrt(0.012 * 0.012 + 0.008 * 0.008), OffsetErrorRadius.Circular(0.95, new BivariateNormal(0.012, -0.008, 1e-40, 1e-40, 0.0)), 1e-15);
 }
+
+/// <summary>The offset model is given only where its quadrature is validated (σmin/σmax ≥ 1e-3, or singular, or offset-dominated).</summary>
+public sealed class OffsetRadiiRangeTests
+{
+    private static (double[] E, double[] N) Thin(double ratio)
+    {
+        var e = new double[20];
+        var n = new double[20];
+        for (var i = 0; i < 20; i++)
+        {
+            e[i] = (i - 9.5) * 0.01;
+            n[i] = ((i * 7) % 20 - 9.5) * 0.01 * ratio;
+        }
+        return (e, n);
+    }
+
+    [Theory]
+    [InlineData(1e-4, false)]
+    [InlineData(5e-4, false)]
+    [InlineData(2e-3, true)]
+    [InlineData(0.5, true)]
+    public void Given_only_in_the_validated_range(double ratio, bool given)
+    {
+        var (e, n) = Thin(ratio);
+        Assert.Equal(given, OffsetRadii.Compute(e, n, []) is not null);
+    }
+}
