@@ -8,7 +8,7 @@ COPY src/QaService.Core/QaService.Core.csproj src/QaService.Core/
 COPY src/QaService.Api/QaService.Api.csproj src/QaService.Api/
 RUN dotnet restore src/QaService.Api/QaService.Api.csproj
 COPY src/ src/
-RUN dotnet publish src/QaService.Api/QaService.Api.csproj -c Release -o /app --no-restore -p:UseAppHost=false \
+RUN dotnet publish src/QaService.Api/QaService.Api.csproj -c Release -o /app -p:UseAppHost=false \
     && mkdir -p /appdata
 
 FROM mcr.microsoft.com/dotnet/aspnet:10.0-noble-chiseled AS runtime

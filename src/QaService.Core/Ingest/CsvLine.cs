@@ -12,6 +12,8 @@ public static class CsvLine
     /// <summary>The fields, or null with a problem when a quote is never closed.</summary>
     public static (List<string>? Fields, string? Problem) Split(string first, char delimiter, LineSource more)
     {
+        if (!first.Contains('"'))
+            return (SplitUnquoted(first, delimiter), null);
         var fields = new List<string>();
         var field = new StringBuilder();
         var line = first;
@@ -58,6 +60,24 @@ public static class CsvLine
             else
                 field.Append(c);
         }
+    }
+
+    /// <summary>
+    /// The common case, a line without quotes: fields are the text between delimiters, cut directly from the line
+    /// (the same result as the character loop, without copying every character through a builder).
+    /// </summary>
+    private static List<string> SplitUnquoted(string line, char delimiter)
+    {
+        var fields = new List<string>();
+        var start = 0;
+        int end;
+        while ((end = line.IndexOf(delimiter, start)) >= 0)
+        {
+            fields.Add(line[start..end]);
+            start = end + 1;
+        }
+        fields.Add(line[start..]);
+        return fields;
     }
 
     /// <summary>Delimiter of a header line: the most frequent of <c>,</c> <c>;</c> tab outside quotes; null when none occurs.</summary>

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using System.Text.Json.Serialization.Metadata;
 
 namespace QaService.Core.Reporting;
 
@@ -13,6 +14,8 @@ public static class ReportJson
     public static JsonSerializerOptions Write { get; } = Freeze(new JsonSerializerOptions(JsonSerializerDefaults.Web)
     {
         DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+        // Report types from generated code (same output, no reflection); anything else as before.
+        TypeInfoResolver = JsonTypeInfoResolver.Combine(ReportJsonContext.Default, new DefaultJsonTypeInfoResolver()),
     });
 
     /// <summary>For reading requests: case-sensitive camelCase, no unknown or duplicate properties, no comments.</summary>
