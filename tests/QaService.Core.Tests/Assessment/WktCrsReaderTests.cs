@@ -98,7 +98,7 @@ public sealed partial class WktCrsReaderTests
 
     private static IReadOnlyList<string[]> LoadAll()
     {
-        string path = Path.Combine(AppContext.BaseDirectory, "reference-data", "crs-wkt-projinfo.tsv");
+        string path = ReferenceFiles.PathOf("crs-wkt-projinfo.tsv");
         return File.ReadLines(path).Where(l => l.Length > 0 && !l.StartsWith('#')).Skip(1).Select(l => l.Split('\t')).ToList();
     }
 }

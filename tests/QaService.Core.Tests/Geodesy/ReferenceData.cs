@@ -11,7 +11,7 @@ internal static class ReferenceData
     /// <summary>Rows of a reference file: '#' comment lines and the column-name line are skipped.</summary>
     internal static IReadOnlyList<string[]> Load(string fileName)
     {
-        string path = Path.Combine(AppContext.BaseDirectory, "reference-data", fileName);
+        string path = ReferenceFiles.PathOf(fileName);
         Assert.True(File.Exists(path), $"Reference file missing: {path}");
         return File.ReadLines(path)
             .Where(l => l.Length > 0 && !l.StartsWith('#'))

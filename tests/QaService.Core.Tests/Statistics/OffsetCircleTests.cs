@@ -43,7 +43,7 @@ public sealed class OffsetCircleTests
     public void Every_scipy_row_agrees()
     {
         // tests/reference-data/offset-circle-scipy.tsv (scipy 1.10 dblquad / ncx2 / brentq; header names versions).
-        string path = Path.Combine(ScipyRadiusReference.RepositoryRoot(), "tests/reference-data/offset-circle-scipy.tsv");
+        string path = ReferenceFiles.PathOf("offset-circle-scipy.tsv");
         int rows = 0;
         foreach (string line in File.ReadLines(path).Where(l => l.Length > 0 && !l.StartsWith('#')))
         {

@@ -4,18 +4,17 @@ namespace QaService.Core.Tests.Statistics;
 
 /// <summary>
 /// Rows of tests/reference-data/circular-radius-scipy.tsv, written by tests/reference-data/make-radius-reference.py
-/// (scipy version in the file header). Found by walking up from the test binaries to QaService.sln, so the test
-/// project needs no item for it.
+/// (scipy version in the file header). Read from the test output's reference-data folder (the csproj copies tests/reference-data/*.tsv there).
 /// </summary>
 internal sealed record ScipyRadiusReference(
     string Label, double MeanSquareE, double MeanSquareN, double MeanProductEN,
     double SigmaMajor, double SigmaMinor, double Probability, double Radius)
 {
-    public const string RelativePath = "tests/reference-data/circular-radius-scipy.tsv";
+    public const string FileName = "circular-radius-scipy.tsv";
 
     public static IReadOnlyList<ScipyRadiusReference> Load()
     {
-        string path = Path.Combine(RepositoryRoot(), RelativePath);
+        string path = ReferenceFiles.PathOf(FileName);
         var rows = new List<ScipyRadiusReference>();
         string[]? header = null;
         foreach (string line in File.ReadLines(path))
@@ -42,18 +41,6 @@ internal sealed record ScipyRadiusReference(
     }
 
     public static string ScipyVersionLine() =>
-        File.ReadLines(Path.Combine(RepositoryRoot(), RelativePath)).First();
+        File.ReadLines(ReferenceFiles.PathOf(FileName)).First();
 
-    internal static string RepositoryRoot()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-        {
-            if (File.Exists(Path.Combine(dir.FullName, "QaService.sln")))
-            {
-                return dir.FullName;
-            }
-        }
-
-        throw new InvalidOperationException("QaService.sln not found above " + AppContext.BaseDirectory);
-    }
 }
