@@ -23,8 +23,7 @@ public static class ReportFigures
         var dU = vertical is null ? [] : included.Where(r => r.DU is not null).Select(r => r.DU!.Value).ToArray();
         double meanSquareE = SampleMoments.MeanSquareAboutZero(dE), meanSquareN = SampleMoments.MeanSquareAboutZero(dN);
 
-        var markIds = included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
-        var marks = input.Marks.Where(m => markIds.Contains(m.Id)).ToList();
+        var marks = TestedMarks.Of(input.Marks, included);
         var spec = input.Spec;
         var standardInput = new StandardInput(horizontal, vertical,
             included.Select(r => r.DH).ToArray(), dU.Select(Math.Abs).ToArray(),

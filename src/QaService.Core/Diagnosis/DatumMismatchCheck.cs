@@ -44,8 +44,7 @@ public sealed class DatumMismatchCheck : IDataCheck
             return new CheckResult(Id, CheckStatus.Pass, Format($"the mean offset ({shift:F3} m) is smaller than any frame difference the service can tell apart"), shift, SmallestTellingShiftMetres, "m");
 
         var input = context.Input;
-        var markIds = included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
-        var marks = input.Marks.Where(m => markIds.Contains(m.Id)).Select(m => m.Geodetic).ToList();
+        var marks = TestedMarks.Of(input.Marks, included).Select(m => m.Geodetic).ToList();
         var centroid = new GeodeticCoordinate(marks.Average(g => g.LatitudeDegrees), marks.Average(g => g.LongitudeDegrees), marks.Average(g => g.EllipsoidalHeightMetres));
         var epoch = input.FixesFrame.EpochDecimalYear ?? input.MarksFrame.EpochDecimalYear
                     ?? input.Fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).DefaultIfEmpty(double.NaN).Average();

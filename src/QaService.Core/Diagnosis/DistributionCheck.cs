@@ -1,3 +1,4 @@
+using QaService.Core.Assessment;
 using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy;
@@ -27,8 +28,7 @@ public sealed class DistributionCheck : IDataCheck
 
     public CheckResult Evaluate(CheckContext context)
     {
-        var markIds = context.Included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
-        var marks = context.Input.Marks.Where(m => markIds.Contains(m.Id)).ToList();
+        var marks = TestedMarks.Of(context.Input.Marks, context.Included);
         if (marks.Count < MinimumMarks)
             return new CheckResult(Id, CheckStatus.Warn, $"{marks.Count} distinct mark(s) tested: too few to judge how they cover the area", marks.Count, MinimumMarks, "marks");
 

@@ -1,3 +1,4 @@
+using QaService.Core.Assessment;
 using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Reporting;
@@ -21,8 +22,7 @@ public sealed class ReferenceAccuracyCheck : IDataCheck
 
     public CheckResult Evaluate(CheckContext context)
     {
-        var markIds = context.Included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
-        var marks = context.Input.Marks.Where(m => markIds.Contains(m.Id)).ToList();
+        var marks = TestedMarks.Of(context.Input.Marks, context.Included);
         if (marks.Count == 0)
             return new CheckResult(Id, CheckStatus.Warn, "no paired marks: their accuracy cannot be judged");
 

@@ -1,0 +1,13 @@
+using QaService.Core.Reporting;
+
+namespace QaService.Core.Assessment;
+
+/// <summary>The marks that at least one counted residual tests, in request order (each mark once).</summary>
+public static class TestedMarks
+{
+    public static List<FramedPoint> Of(IReadOnlyList<FramedPoint> marks, IReadOnlyList<Residual> included)
+    {
+        var markIds = included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
+        return marks.Where(m => markIds.Contains(m.Id)).ToList();
+    }
+}
