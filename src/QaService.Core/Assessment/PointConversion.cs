@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy;
 using QaService.Core.Geodesy.Catalog;
@@ -55,7 +56,7 @@ internal static class PointConversion
             return 0.0;
         var metres = h * crs.Unit.MetresPerUnit;
         if (!double.IsFinite(metres) || metres < MinimumHeightMetres || metres > MaximumHeightMetres)
-            errors.Add(new($"{pointer}/h", Invariant($"height {h} is outside {MinimumHeightMetres}..{MaximumHeightMetres} m; heights are in the CRS unit ({crs.Unit.PluralName})")));
+            errors.Add(new($"{pointer}/h", Format($"height {h} is outside {MinimumHeightMetres}..{MaximumHeightMetres} m; heights are in the CRS unit ({crs.Unit.PluralName})")));
         return metres;
     }
 
@@ -66,9 +67,9 @@ internal static class PointConversion
         var lat = p.Lat!.Value;
         var lon = p.Lon!.Value;
         if (!double.IsFinite(lat) || lat < -90 || lat > 90)
-            errors.Add(new($"{pointer}/lat", Invariant($"latitude {lat} is outside -90..90 degrees")));
+            errors.Add(new($"{pointer}/lat", Format($"latitude {lat} is outside -90..90 degrees")));
         if (!double.IsFinite(lon) || lon < -180 || lon > 180)
-            errors.Add(new($"{pointer}/lon", Invariant($"longitude {lon} is outside -180..180 degrees")));
+            errors.Add(new($"{pointer}/lon", Format($"longitude {lon} is outside -180..180 degrees")));
         return new GeodeticCoordinate(lat, lon, heightMetres);
     }
 
@@ -104,7 +105,7 @@ internal static class PointConversion
         }
         if (!double.IsFinite(lat) || !double.IsFinite(lon) || Math.Abs(lat) >= 90)
         {
-            errors.Add(new($"{pointer}/n", Invariant($"e {p.E}, n {p.N} lie beyond the pole or outside the projection of {crs.Identifier}: check the zone, the hemisphere, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/n", Format($"e {p.E}, n {p.N} lie beyond the pole or outside the projection of {crs.Identifier}: check the zone, the hemisphere, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
             return null;
         }
         var eastGap = Math.Abs(back.EastingMetres - eastingMetres);
@@ -112,14 +113,14 @@ internal static class PointConversion
         if (!(Math.Max(eastGap, northGap) <= RoundTripToleranceMetres))
         {
             var field = eastGap >= northGap ? "e" : "n";
-            errors.Add(new($"{pointer}/{field}", Invariant($"e {p.E}, n {p.N} lie outside the part of the plane that {crs.Identifier} maps one-to-one (too far from its origin; for UTM the easting is far outside the zone): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/{field}", Format($"e {p.E}, n {p.N} lie outside the part of the plane that {crs.Identifier} maps one-to-one (too far from its origin; for UTM the easting is far outside the zone): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
             return null;
         }
         if (crs.AreaOfUse is { } area && area.DegreesOutside(lat, lon) is var outside && outside > MaximumDegreesOutsideAreaOfUse)
         {
             var latitudeOutside = lat < area.SouthDegrees ? area.SouthDegrees - lat : lat > area.NorthDegrees ? lat - area.NorthDegrees : 0;
             var field = latitudeOutside >= outside ? "n" : "e";
-            errors.Add(new($"{pointer}/{field}", Invariant($"e {p.E}, n {p.N} fall at lat {lat:F3}, lon {lon:F3}, {outside:F1}° outside the area of use of {crs.Identifier} ({area.Name}): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
+            errors.Add(new($"{pointer}/{field}", Format($"e {p.E}, n {p.N} fall at lat {lat:F3}, lon {lon:F3}, {outside:F1}° outside the area of use of {crs.Identifier} ({area.Name}): check the zone, the unit ({crs.Unit.PluralName}) and that e/n are not swapped")));
             return null;
         }
         return new GeodeticCoordinate(lat, lon, heightMetres);
@@ -138,7 +139,7 @@ internal static class PointConversion
         var geodetic = GeocentricConversion.ToGeodetic(xyz, crs.Ellipsoid);
         if (geodetic.EllipsoidalHeightMetres < MinimumHeightMetres || geodetic.EllipsoidalHeightMetres > MaximumHeightMetres)
         {
-            errors.Add(new(pointer, Invariant($"x, y, z lie {geodetic.EllipsoidalHeightMetres:F0} m from the ellipsoid, outside {MinimumHeightMetres}..{MaximumHeightMetres} m: geocentric coordinates are in metres from the Earth's centre")));
+            errors.Add(new(pointer, Format($"x, y, z lie {geodetic.EllipsoidalHeightMetres:F0} m from the ellipsoid, outside {MinimumHeightMetres}..{MaximumHeightMetres} m: geocentric coordinates are in metres from the Earth's centre")));
             return null;
         }
         return geodetic;
@@ -190,5 +191,4 @@ internal static class PointConversion
         return false;
     }
 
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

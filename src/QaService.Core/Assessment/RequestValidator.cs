@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy.Catalog;
 using QaService.Core.Geodesy.Vertical;
@@ -94,7 +95,7 @@ public static class RequestValidator
             errors.Add(new($"{pointer}/geoid", "orthometric heights need the geoid model they refer to, e.g. \"egm96\""));
 
         if (set.Epoch is { } epoch && (!double.IsFinite(epoch) || epoch < MinimumEpochYear || epoch > MaximumEpochYear))
-            errors.Add(new($"{pointer}/epoch", Invariant($"epoch {epoch} is not a decimal year in {MinimumEpochYear}..{MaximumEpochYear}")));
+            errors.Add(new($"{pointer}/epoch", Format($"epoch {epoch} is not a decimal year in {MinimumEpochYear}..{MaximumEpochYear}")));
 
         if (set.Points is null || set.Points.Count == 0)
             errors.Add(new($"{pointer}/points", "at least one point is required"));
@@ -169,17 +170,17 @@ public static class RequestValidator
     private static void CheckSigma(double? sigma, PointPointer point, string field, List<InputError> errors)
     {
         if (sigma is { } s && (!double.IsFinite(s) || s < 0))
-            errors.Add(new($"{point}/{field}", Invariant($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
+            errors.Add(new($"{point}/{field}", Format($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
     }
 
     private static void CheckIds(List<FramedPoint> marks, List<FramedPoint> fixes, List<InputError> errors)
     {
         var markIds = new HashSet<string>(StringComparer.Ordinal);
         foreach (var mark in marks.Where(mark => !markIds.Add(mark.Id)))
-            errors.Add(new(Invariant($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
+            errors.Add(new(Format($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
 
         foreach (var fix in fixes.Where(f => f.MarkId is { Length: > 0 } && !markIds.Contains(f.MarkId)))
-            errors.Add(new(Invariant($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{fix.MarkId}\""));
+            errors.Add(new(Format($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{fix.MarkId}\""));
     }
 
     private static RequiredAccuracy? ReadSpec(AccuracySpec? spec, List<InputError> errors)
@@ -195,11 +196,11 @@ public static class RequestValidator
         CheckRequirement(spec.Horizontal, "/spec/horizontal", errors);
         CheckRequirement(spec.Vertical, "/spec/vertical", errors);
         if (spec.Confidence is { } c && !(c >= MinimumConfidence && c <= MaximumConfidence))
-            errors.Add(new("/spec/confidence", Invariant($"confidence {c} must be a level between {MinimumConfidence} and {MaximumConfidence}, e.g. 0.9")));
+            errors.Add(new("/spec/confidence", Format($"confidence {c} must be a level between {MinimumConfidence} and {MaximumConfidence}, e.g. 0.9")));
         if (spec.MapScale is { } scale && !(double.IsFinite(scale) && scale >= 1))
-            errors.Add(new("/spec/mapScale", Invariant($"map scale {scale} must be the scale denominator, a number ≥ 1 (24000 for 1:24,000)")));
+            errors.Add(new("/spec/mapScale", Format($"map scale {scale} must be the scale denominator, a number ≥ 1 (24000 for 1:24,000)")));
         if (spec.ContourInterval is { } ci && !(double.IsFinite(ci) && ci > 0))
-            errors.Add(new("/spec/contourInterval", Invariant($"contour interval {ci} must be a positive number of metres")));
+            errors.Add(new("/spec/contourInterval", Format($"contour interval {ci} must be a positive number of metres")));
         if (standard == AccuracyStandards.NmasId && spec.MapScale is null && spec.ContourInterval is null)
             errors.Add(new("/spec/mapScale", "nmas-1947 judges against the map: give \"mapScale\" (e.g. 24000) and/or \"contourInterval\" (metres)"));
         return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical, spec.Confidence, spec.MapScale, spec.ContourInterval);
@@ -208,7 +209,7 @@ public static class RequestValidator
     private static void CheckRequirement(double? metres, string pointer, List<InputError> errors)
     {
         if (metres is { } m && (!double.IsFinite(m) || m <= 0))
-            errors.Add(new(pointer, Invariant($"required accuracy {m} must be a positive number of metres at 95 % confidence")));
+            errors.Add(new(pointer, Format($"required accuracy {m} must be a positive number of metres at 95 % confidence")));
     }
 
     private static double? ReadPairing(PairingOptions? pairing, List<InputError> errors)
@@ -217,7 +218,7 @@ public static class RequestValidator
             return null;
         var radius = pairing.Radius ?? DefaultPairingRadiusMetres;
         if (!double.IsFinite(radius) || radius <= 0 || radius > MaximumPairingRadiusMetres)
-            errors.Add(new("/pairing/radius", Invariant($"pairing radius {radius} must be in (0, {MaximumPairingRadiusMetres}] metres")));
+            errors.Add(new("/pairing/radius", Format($"pairing radius {radius} must be in (0, {MaximumPairingRadiusMetres}] metres")));
         return radius;
     }
 
@@ -229,7 +230,7 @@ public static class RequestValidator
         var fixIds = fixes.Select(f => f.Id).ToHashSet(StringComparer.Ordinal);
         for (var i = 0; i < exclusions.Count; i++)
         {
-            var pointer = Invariant($"/exclusions/{i}");
+            var pointer = Format($"/exclusions/{i}");
             var exclusion = exclusions[i];
             if (exclusion is null || string.IsNullOrWhiteSpace(exclusion.Fix))
                 errors.Add(new($"{pointer}/fix", "an exclusion names the fix id it leaves out"));
@@ -243,7 +244,6 @@ public static class RequestValidator
         return result;
     }
 
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }
 
 /// <summary>Either a validated assessment or the problems that stop it.</summary>

@@ -1,3 +1,4 @@
+using static QaService.Core.InvariantText;
 using System.Globalization;
 using System.Text;
 
@@ -21,24 +22,24 @@ public static class WktParser
         var node = ParseNode(text, ref position, 0);
         SkipSpace(text, ref position);
         if (position != text.Length)
-            throw new FormatException(Invariant($"unexpected text after the closing bracket at character {position}"));
+            throw new FormatException(Format($"unexpected text after the closing bracket at character {position}"));
         return node;
     }
 
     private static WktNode ParseNode(string text, ref int position, int depth)
     {
         if (depth > MaximumDepth)
-            throw new FormatException(Invariant($"WKT nests deeper than {MaximumDepth} levels at character {position}"));
+            throw new FormatException(Format($"WKT nests deeper than {MaximumDepth} levels at character {position}"));
         SkipSpace(text, ref position);
         int start = position;
         while (position < text.Length && (char.IsAsciiLetterOrDigit(text[position]) || text[position] == '_'))
             position++;
         if (position == start)
-            throw new FormatException(Invariant($"expected a WKT keyword at character {position}"));
+            throw new FormatException(Format($"expected a WKT keyword at character {position}"));
         string keyword = text[start..position].ToUpperInvariant();
         SkipSpace(text, ref position);
         if (position >= text.Length || (text[position] != '[' && text[position] != '('))
-            throw new FormatException(Invariant($"expected '[' after {keyword} at character {position}"));
+            throw new FormatException(Format($"expected '[' after {keyword} at character {position}"));
         char close = text[position] == '[' ? ']' : ')';
         position++;
         var values = new List<object>();
@@ -70,7 +71,7 @@ public static class WktParser
                 break;
             }
 
-            throw new FormatException(Invariant($"expected ',' or '{close}' in {keyword} at character {position}"));
+            throw new FormatException(Format($"expected ',' or '{close}' in {keyword} at character {position}"));
         }
 
         return new WktNode(keyword, values);
@@ -88,7 +89,7 @@ public static class WktParser
             while (position < text.Length && (char.IsAsciiDigit(text[position]) || text[position] is '.' or 'e' or 'E' or '-' or '+'))
                 position++;
             if (!double.TryParse(text.AsSpan(start, position - start), NumberStyles.Float, CultureInfo.InvariantCulture, out var number))
-                throw new FormatException(Invariant($"\"{text[start..position]}\" at character {start} is not a number"));
+                throw new FormatException(Format($"\"{text[start..position]}\" at character {start} is not a number"));
             return new WktNumber(number);
         }
 
@@ -108,7 +109,7 @@ public static class WktParser
             return new WktWord(text[start..position]);
         }
 
-        throw new FormatException(Invariant($"unexpected '{c}' at character {position}"));
+        throw new FormatException(Format($"unexpected '{c}' at character {position}"));
     }
 
     private static string ParseQuoted(string text, ref int position)
@@ -143,5 +144,4 @@ public static class WktParser
             position++;
     }
 
-    private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 }
