@@ -1,4 +1,8 @@
 using BenchmarkDotNet.Running;
 
 // dotnet run -c Release --project bench/QaService.Benchmarks -- --filter '*'   (or a class name, e.g. '*Projection*')
-BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+// dotnet run -c Release --project bench/QaService.Benchmarks -- stages MARKS.csv FIXES.csv OPTIONS.json [rounds]   (see StageTimes)
+if (args.Length > 0 && args[0] == "stages")
+    await StageTimes.RunAsync(args);
+else
+    BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
