@@ -11,7 +11,7 @@ internal static class StoredReports
     /// Lenient on purpose (unlike request reading): a report stored by an older or newer build, with a field
     /// this build does not know, still renders.
     /// </summary>
-    private static readonly JsonSerializerOptions Options = new(JsonSerializerDefaults.Web);
+    private static JsonSerializerOptions Options => ReportJson.StoredReport;
 
     public static async Task<AssessmentReport?> LoadAsync(IReportStore store, string tenant, string id, CancellationToken cancellationToken)
     {

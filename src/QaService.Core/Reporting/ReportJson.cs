@@ -16,6 +16,14 @@ public static class ReportJson
         DefaultIgnoreCondition = JsonIgnoreCondition.Never,
         // Report types from generated code (same output, no reflection); anything else as before.
         TypeInfoResolver = JsonTypeInfoResolver.Combine(ReportJsonContext.Default, new DefaultJsonTypeInfoResolver()),
+        // Here, not as an attribute on Residual: the OpenAPI documents describe Residual's fields from its properties.
+        Converters = { new ResidualJsonConverter() },
+    });
+
+    /// <summary>For reading stored reports back: lenient (fields from other builds are skipped), residuals in any number form.</summary>
+    public static JsonSerializerOptions StoredReport { get; } = Freeze(new JsonSerializerOptions(JsonSerializerDefaults.Web)
+    {
+        Converters = { new ResidualJsonConverter() },
     });
 
     /// <summary>For reading requests: case-sensitive camelCase, no unknown or duplicate properties, no comments.</summary>

@@ -49,6 +49,29 @@ public sealed class SqliteStreamingStoreTests : IDisposable
         Assert.Equal(Encoding.UTF8.GetString(json), await store.FindJsonAsync("t1", "id1", CancellationToken.None));
     }
 
+    [Fact]
+    public async Task A_large_report_reaches_the_database_file_through_the_background_checkpoint()
+    {
+        var path = Path.Combine(folder, "c.db");
+        var store = new SqliteReportStore(Options.Create(new StorageOptions { ConnectionString = $"Data Source={path}" }));
+        await store.InitializeAsync(CancellationToken.None);
+        var json = Encoding.UTF8.GetBytes("{\"text\":\"" + new string('x', 4_000_000) + "\"}");
+        await ((IReportStore)store).SaveAsync(new ReportHeader("t1", "big", DateTimeOffset.UnixEpoch, null, "pass"), new MemoryStream(json), CancellationToken.None);
+
+        // The commit skipped SQLite's automatic checkpoint; the background one copies the pages into the main file
+        // (its length grows past the report's) without anyone here checkpointing.
+        var deadline = DateTime.UtcNow.AddSeconds(20);
+        while (new FileInfo(path).Length < json.Length && DateTime.UtcNow < deadline)
+            await Task.Delay(50);
+        Assert.True(new FileInfo(path).Length >= json.Length, $"database file {new FileInfo(path).Length} bytes after the checkpoint");
+
+        await using var connection = new SqliteConnection($"Data Source={path};Pooling=False");
+        await connection.OpenAsync();
+        await using var command = connection.CreateCommand();
+        command.CommandText = "PRAGMA page_size";
+        Assert.Equal((long)SqliteSchema.PageSizeBytes, (long)(await command.ExecuteScalarAsync())!);
+    }
+
     public void Dispose()
     {
         SqliteConnection.ClearAllPools();
