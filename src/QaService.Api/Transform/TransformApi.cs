@@ -6,6 +6,7 @@ using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
 using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Reporting;
 using QaService.Core.Transform;
 
 namespace QaService.Api.Transform;
@@ -51,7 +52,10 @@ internal static class TransformApi
         return new TransformJsonResult(outcome.Result);
     }
 
-    /// <summary>Streams the response with <see cref="Utf8JsonWriter"/>: no object per point.</summary>
+    /// <summary>
+    /// Streams the response with <see cref="Utf8JsonWriter"/>: no object per point, numbers as plain decimals at the
+    /// resolution above (the same value Math.Round gave before, written without the shortest-round-trip search).
+    /// </summary>
     private sealed class TransformJsonResult(TransformResult result) : IResult
     {
         public async Task ExecuteAsync(HttpContext httpContext)
@@ -72,13 +76,14 @@ internal static class TransformApi
             };
             var planar = result.Target.Kind == CrsKind.Geographic ? DegreeDecimals : LinearDecimals;
             var geocentric = result.Target.Kind == CrsKind.Geocentric;
+            var names = (First: JsonEncodedText.Encode(first), Second: JsonEncodedText.Encode(second), Third: JsonEncodedText.Encode(third));
             for (var i = 0; i < p.Count; i++)
             {
                 writer.WriteStartObject();
-                writer.WriteNumber(first, Math.Round(p.First[i], planar));
-                writer.WriteNumber(second, Math.Round(p.Second[i], planar));
+                WriteFixed(writer, names.First, p.First[i], planar);
+                WriteFixed(writer, names.Second, p.Second[i], planar);
                 if (geocentric || result.HasHeight[i])
-                    writer.WriteNumber(third, Math.Round(p.Third[i], LinearDecimals));
+                    WriteFixed(writer, names.Third, p.Third[i], LinearDecimals);
                 writer.WriteEndObject();
                 if (writer.BytesPending > 32_768)
                     await writer.FlushAsync(httpContext.RequestAborted);
@@ -88,6 +93,18 @@ internal static class TransformApi
             writer.WriteNumber("accuracy", result.AccuracyMetres);
             writer.WriteEndObject();
             await writer.FlushAsync(httpContext.RequestAborted);
+        }
+
+        private static void WriteFixed(Utf8JsonWriter writer, JsonEncodedText name, double value, int decimals)
+        {
+            Span<byte> text = stackalloc byte[FixedDecimalUtf8.MaximumBytes];
+            if (FixedDecimalUtf8.TryFormat(value, decimals, text, out var length))
+            {
+                writer.WritePropertyName(name);
+                writer.WriteRawValue(text[..length], skipInputValidation: true);
+            }
+            else
+                writer.WriteNumber(name, Math.Round(value, decimals));
         }
     }
 }
