@@ -5,14 +5,28 @@ namespace QaService.Api.Storage;
 /// <summary>
 /// Runs a PASSIVE WAL checkpoint off the request path (https://sqlite.org/c3ref/wal_checkpoint_v2.html): it copies
 /// committed pages into the database without blocking readers or writers. Requests arriving while one runs are
-/// coalesced into one more run. Nothing is lost if it never runs: committed data is in the WAL, which SQLite
-/// checkpoints on its own later (the next automatic checkpoint, or the last connection closing).
+/// coalesced into one more run. It runs once a few MB have been committed since the last run, so a stream of small
+/// reports does not pay a checkpoint (and its fsync) per commit. Nothing is lost if it never runs: committed data is
+/// in the WAL (fsynced at commit), which the next run or the last connection closing copies.
 /// </summary>
 internal sealed class SqliteBackgroundCheckpoint(string connectionString)
 {
+    /// <summary>Bytes committed that start a checkpoint: a few MB keeps the WAL short and the runs rare (common practice).</summary>
+    public const long ThresholdBytes = 4L * 1024 * 1024;
+
+    private long pendingBytes;
     private int running, askedAgain;
 
-    public void Request()
+    /// <summary>Counts a commit of about <paramref name="bytes"/>; past the threshold, starts (or queues) a checkpoint.</summary>
+    public void Committed(long bytes)
+    {
+        if (Interlocked.Add(ref pendingBytes, bytes) < ThresholdBytes)
+            return;
+        Interlocked.Exchange(ref pendingBytes, 0);
+        Request();
+    }
+
+    private void Request()
     {
         Volatile.Write(ref askedAgain, 1);
         if (Interlocked.CompareExchange(ref running, 1, 0) == 0)

@@ -10,7 +10,7 @@ namespace QaService.Api.Storage;
 /// for one each (SQLite WAL: a commit costs an fsync, ~1 ms here, and writers are serialised anyway). One failing insert
 /// (a duplicate id) is rolled back to its own savepoint and fails alone.
 /// </summary>
-internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConnection>> open, SemaphoreSlim writeLock)
+internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConnection>> open, SemaphoreSlim writeLock, Action<long> afterCommit)
 {
     /// <summary>Most inserts in one transaction (bounds the time the first of them waits).</summary>
     private const int MaximumBatch = 256;
@@ -83,6 +83,7 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
             }
         }
         await transaction.CommitAsync();
+        afterCommit(batch.Sum(pending => (long)pending.Json.Length));
         for (var i = 0; i < batch.Count; i++)
         {
             if (failed[i] is { } exception)

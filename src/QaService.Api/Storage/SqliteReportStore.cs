@@ -18,9 +18,6 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
 
     private SqliteGroupCommit? groupCommit;
 
-    /// <summary>SQLite's default automatic checkpoint threshold, WAL pages (https://sqlite.org/pragma.html#pragma_wal_autocheckpoint).</summary>
-    private const int DefaultAutomaticCheckpointPages = 1000;
-
     private readonly SqliteBackgroundCheckpoint checkpoints = new(options.Value.EffectiveConnectionString);
 
     public async Task InitializeAsync(CancellationToken cancellationToken)
@@ -56,7 +53,7 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         {
             var bytes = new byte[length];
             await json.ReadExactlyAsync(bytes, cancellationToken);
-            await LazyInitializer.EnsureInitialized(ref groupCommit, () => new SqliteGroupCommit(OpenAsync, writeLock)).SaveAsync(header, bytes);
+            await LazyInitializer.EnsureInitialized(ref groupCommit, () => new SqliteGroupCommit(OpenAsync, writeLock, checkpoints.Committed)).SaveAsync(header, bytes);
             return;
         }
         await writeLock.WaitAsync(cancellationToken);
@@ -71,27 +68,12 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     }
 
     /// <summary>
-    /// A large report commits without SQLite's automatic checkpoint: that would copy the whole report from the WAL into
-    /// the database inside this request (about a third of the store time). The checkpoint runs after, in the background.
+    /// One transaction; the commit does not checkpoint (that would copy the whole report from the WAL into the database
+    /// inside this request, about a third of the store time): the checkpoint runs after, in the background.
     /// </summary>
     private async Task SaveStreamedAsync(ReportHeader header, Stream json, long length, CancellationToken cancellationToken)
     {
         await using var connection = await OpenAsync(cancellationToken);
-        await SetAutomaticCheckpointAsync(connection, 0, cancellationToken);
-        try
-        {
-            await InsertStreamedAsync(connection, header, json, length, cancellationToken);
-        }
-        finally
-        {
-            // Pooled connections keep their settings: restore the default before this one goes back.
-            await SetAutomaticCheckpointAsync(connection, DefaultAutomaticCheckpointPages, CancellationToken.None);
-        }
-        checkpoints.Request();
-    }
-
-    private static async Task InsertStreamedAsync(SqliteConnection connection, ReportHeader header, Stream json, long length, CancellationToken cancellationToken)
-    {
         await using var transaction = connection.BeginTransaction(deferred: false);
         long rowId;
         await using (var command = connection.CreateCommand())
@@ -109,13 +91,7 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         await using (var blob = new SqliteBlob(connection, "reports", "json", rowId))
             await json.CopyToAsync(blob, CopyBufferBytes, cancellationToken);
         await transaction.CommitAsync(cancellationToken);
-    }
-
-    private static async Task SetAutomaticCheckpointAsync(SqliteConnection connection, int pages, CancellationToken cancellationToken)
-    {
-        await using var command = connection.CreateCommand();
-        command.CommandText = $"PRAGMA wal_autocheckpoint = {pages};";
-        await command.ExecuteNonQueryAsync(cancellationToken);
+        checkpoints.Committed(length);
     }
 
     public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)

@@ -55,7 +55,7 @@ public sealed class SqliteStreamingStoreTests : IDisposable
         var path = Path.Combine(folder, "c.db");
         var store = new SqliteReportStore(Options.Create(new StorageOptions { ConnectionString = $"Data Source={path}" }));
         await store.InitializeAsync(CancellationToken.None);
-        var json = Encoding.UTF8.GetBytes("{\"text\":\"" + new string('x', 4_000_000) + "\"}");
+        var json = Encoding.UTF8.GetBytes("{\"text\":\"" + new string('x', (int)SqliteBackgroundCheckpoint.ThresholdBytes) + "\"}");
         await ((IReportStore)store).SaveAsync(new ReportHeader("t1", "big", DateTimeOffset.UnixEpoch, null, "pass"), new MemoryStream(json), CancellationToken.None);
 
         // The commit skipped SQLite's automatic checkpoint; the background one copies the pages into the main file
