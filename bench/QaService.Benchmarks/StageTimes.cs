@@ -73,7 +73,7 @@ internal static class StageTimes
         Time("serialise JSON", () =>
         {
             using var sink = new CountingStream();
-            JsonSerializer.SerializeAsync(sink, report, ReportJson.Write).GetAwaiter().GetResult();
+            ReportJsonStream.WriteAsync(report, sink, default).GetAwaiter().GetResult();
             return sink.Length;
         });
         return times;

@@ -25,8 +25,8 @@ internal static class ReportSerialisation
                 FileShare.None, FileBufferBytes, FileOptions.DeleteOnClose | FileOptions.Asynchronous);
         try
         {
-            // SerializeAsync flushes to the stream as its buffer fills, element by element through the residual list.
-            await JsonSerializer.SerializeAsync(buffer, report, ReportJson.Write, cancellationToken);
+            // The residuals go out batch by batch as they are rendered; the rest of the report is small.
+            await ReportJsonStream.WriteAsync(report, buffer, cancellationToken);
             buffer.Position = 0;
             return buffer;
         }

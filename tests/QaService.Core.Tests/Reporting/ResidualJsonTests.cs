@@ -85,3 +85,53 @@ public sealed class ResidualJsonTests
         Assert.Equal(new Residual("M1", "F1", -0.031037538976913553, 0.001, 0.5, 0.03119, "id", null, 50.1, 15), residual);
     }
 }
+
+/// <summary>
+/// The parallel report writer against System.Text.Json itself (the .NET 10 serialiser, default encoder) writing the
+/// same report in one piece: the bytes must be identical, whatever the ids contain and however many batches there are.
+/// </summary>
+public sealed class ReportJsonStreamTests
+{
+    [Fact]
+    public async Task Hostile_strings_come_out_as_the_serialiser_writes_them()
+    {
+        var report = SampleReports.With(
+            ("<img src=x onerror=alert(1)>", "=HYPERLINK(\"http://x\",\"y\")", 0.01, -0.02, 0.03, null),
+            ("M-2 ümlaut 北", "+SUM(A1) `x` & 'y'", -0.015, 0.004, -0.01, null),
+            ("M-3\ttab\u0001", "\\back\\slash", 0.02, 0.011, null, null),
+            ("M-3\ttab\u0001", "emoji 😀", 0.3, 0.2, 0.5, "blunder, \"re-observed\""),
+            ("M-4", "F,\"q\"", 0.1, -1e-300, 0.2, null));
+        // Numbers outside the fixed range take the serialiser's own form.
+        report = report with { Residuals = [.. report.Residuals, new Residual("M-5", "F-5", 3e12, -1e-300, double.MaxValue, 3e12, "proximity", null, 1e20, -0.0)] };
+        // Each character the default encoder escapes, alone in an otherwise plain id.
+        var alone = "\"\\&'<>+`\u007f\u0080é\u001f".Select((c, i) => new Residual($"M{c}", $"F-{i}{c}x", 0.001 * i, 0, null, 0.001 * i, "id", null, 48, 15));
+        report = report with { Residuals = [.. report.Residuals, .. alone] };
+        Assert.Equal(JsonSerializer.Serialize(report, ReportJson.Write), await WrittenAsync(report));
+    }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(1)]
+    [InlineData(4_096)]
+    [InlineData(4_097)]
+    [InlineData(70_001)]
+    public async Task Any_number_of_residuals_comes_out_whole_and_in_order(int count)
+    {
+        var random = new Random(count);
+        var pairs = Enumerable.Range(0, Math.Max(count, 1))
+            .Select(i => ($"M{i % 97}", $"F{i:D6}", random.NextDouble() - 0.5, random.NextDouble() - 0.5, i % 5 == 0 ? (double?)null : random.NextDouble(),
+                i % 11 == 3 ? "left out" : null))
+            .ToArray();
+        var report = SampleReports.With(pairs);
+        if (count == 0)
+            report = report with { Residuals = [] };
+        Assert.Equal(JsonSerializer.Serialize(report, ReportJson.Write), await WrittenAsync(report));
+    }
+
+    private static async Task<string> WrittenAsync(AssessmentReport report)
+    {
+        using var stream = new MemoryStream();
+        await ReportJsonStream.WriteAsync(report, stream, CancellationToken.None);
+        return Encoding.UTF8.GetString(stream.ToArray());
+    }
+}

@@ -1,0 +1,130 @@
+using System.Buffers;
+using System.Text.Json;
+
+namespace QaService.Core.Reporting;
+
+/// <summary>
+/// Renders residual objects straight to UTF-8, byte for byte what <see cref="ResidualJsonConverter"/> writes through
+/// <see cref="Utf8JsonWriter"/> with the default encoder (names, order, fixed-resolution numbers, string escaping),
+/// without the writer's per-token bookkeeping. Strings of printable ASCII that the default encoder leaves alone are
+/// copied as they are; any other string goes through <see cref="JsonEncodedText"/>, the encoder itself.
+/// </summary>
+internal static class ResidualJsonBytes
+{
+    private static readonly byte[] MarkPrefix = "{\"mark\":"u8.ToArray(), FixPrefix = ",\"fix\":"u8.ToArray(),
+        DEPrefix = ",\"dE\":"u8.ToArray(), DNPrefix = ",\"dN\":"u8.ToArray(), DUPrefix = ",\"dU\":"u8.ToArray(),
+        DHPrefix = ",\"dH\":"u8.ToArray(), PairedByPrefix = ",\"pairedBy\":"u8.ToArray(), ExcludedPrefix = ",\"excluded\":"u8.ToArray(),
+        LatitudePrefix = ",\"markLatitude\":"u8.ToArray(), LongitudePrefix = ",\"markLongitude\":"u8.ToArray(), Null = "null"u8.ToArray();
+
+    /// <summary>Fixed bytes of one object besides its strings: names, punctuation and six numbers at their longest.</summary>
+    private const int FixedPartBytes = 160 + 6 * FixedDecimalUtf8.MaximumBytes;
+
+    /// <summary>Most bytes one character can become (<c>\uXXXX</c>, or a surrogate pair's 12 bytes for 2 chars).</summary>
+    private const int MaximumBytesPerChar = 6;
+
+    /// <summary>An upper bound of the bytes <see cref="Write"/> needs for <paramref name="residual"/>.</summary>
+    public static int MaximumLength(Residual residual) =>
+        FixedPartBytes + MaximumBytesPerChar * (residual.Mark.Length + residual.Fix.Length + residual.PairedBy.Length + (residual.Excluded?.Length ?? 0) + 8);
+
+    /// <summary>Writes one residual object; the destination holds at least <see cref="MaximumLength"/> bytes. Returns bytes written.</summary>
+    public static int Write(Residual residual, Span<byte> destination, ref EncodedStringCache cache)
+    {
+        var at = 0;
+        Append(MarkPrefix, destination, ref at);
+        AppendString(residual.Mark, destination, ref at, ref cache);
+        Append(FixPrefix, destination, ref at);
+        AppendString(residual.Fix, destination, ref at, ref cache);
+        Append(DEPrefix, destination, ref at);
+        AppendNumber(residual.DE, ResidualJsonConverter.ComponentDecimals, destination, ref at);
+        Append(DNPrefix, destination, ref at);
+        AppendNumber(residual.DN, ResidualJsonConverter.ComponentDecimals, destination, ref at);
+        Append(DUPrefix, destination, ref at);
+        if (residual.DU is { } up)
+            AppendNumber(up, ResidualJsonConverter.ComponentDecimals, destination, ref at);
+        else
+            Append(Null, destination, ref at);
+        Append(DHPrefix, destination, ref at);
+        AppendNumber(residual.DH, ResidualJsonConverter.ComponentDecimals, destination, ref at);
+        Append(PairedByPrefix, destination, ref at);
+        AppendString(residual.PairedBy, destination, ref at, ref cache);
+        Append(ExcludedPrefix, destination, ref at);
+        if (residual.Excluded is { } reason)
+            AppendString(reason, destination, ref at, ref cache);
+        else
+            Append(Null, destination, ref at);
+        Append(LatitudePrefix, destination, ref at);
+        AppendNumber(residual.MarkLatitude, ResidualJsonConverter.DegreeDecimals, destination, ref at);
+        Append(LongitudePrefix, destination, ref at);
+        AppendNumber(residual.MarkLongitude, ResidualJsonConverter.DegreeDecimals, destination, ref at);
+        destination[at++] = (byte)'}';
+        return at;
+    }
+
+    private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at)
+    {
+        bytes.CopyTo(destination[at..]);
+        at += bytes.Length;
+    }
+
+    private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at)
+    {
+        if (FixedDecimalUtf8.TryFormat(value, decimals, destination[at..], out var written))
+        {
+            at += written;
+            return;
+        }
+        // Out of the fixed range (or not finite): the writer's own number form, as the converter falls back to.
+        var buffer = new ArrayBufferWriter<byte>(FixedDecimalUtf8.MaximumBytes);
+        using (var writer = new Utf8JsonWriter(buffer))
+            writer.WriteNumberValue(value);
+        Append(buffer.WrittenSpan, destination, ref at);
+    }
+
+    private static void AppendString(string text, Span<byte> destination, ref int at, ref EncodedStringCache cache)
+    {
+        destination[at++] = (byte)'"';
+        if (IsPlain(text))
+        {
+            for (var i = 0; i < text.Length; i++)
+                destination[at + i] = (byte)text[i];
+            at += text.Length;
+        }
+        else
+            Append(cache.Encode(text), destination, ref at);
+        destination[at++] = (byte)'"';
+    }
+
+    /// <summary>
+    /// True when the default encoder (System.Text.Encodings.Web JavaScriptEncoder.Default, which System.Text.Json
+    /// writes with) leaves every character as it is: printable ASCII except <c>" \ &amp; ' &lt; &gt; + `</c>.
+    /// </summary>
+    private static bool IsPlain(string text)
+    {
+        foreach (var c in text)
+        {
+            if (c < ' ' || c > '~' || c is '"' or '\\' or '&' or '\'' or '<' or '>' or '+' or '`')
+                return false;
+        }
+        return true;
+    }
+}
+
+/// <summary>
+/// The last string that needed escaping and its encoding: consecutive residuals of one mark repeat the same id
+/// string instance, so one entry saves encoding it again. One per rendering thread.
+/// </summary>
+internal struct EncodedStringCache
+{
+    private string? last;
+    private byte[]? lastEncoded;
+
+    public ReadOnlySpan<byte> Encode(string text)
+    {
+        if (!ReferenceEquals(text, last))
+        {
+            lastEncoded = JsonEncodedText.Encode(text).EncodedUtf8Bytes.ToArray();
+            last = text;
+        }
+        return lastEncoded;
+    }
+}
