@@ -22,16 +22,25 @@ public static class MarkPairing
     /// </summary>
     public static (IReadOnlyList<MarkFixPair> Pairs, int Unpaired) Pair(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
     {
+        var (pairs, _, unpaired) = PairWithRows(assessment, markGeocentric);
+        return (pairs, unpaired);
+    }
+
+    /// <summary>As <see cref="Pair"/>, with the row in <c>Marks</c> of each pair's mark (so no caller looks the id up again).</summary>
+    internal static (List<MarkFixPair> Pairs, int[] MarkRows, int Unpaired) PairWithRows(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
+    {
         var marksById = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < assessment.Marks.Count; i++)
             marksById[assessment.Marks[i].Id] = i;
 
         var pairs = new List<MarkFixPair>(assessment.Fixes.Count);
+        var markRows = new int[assessment.Fixes.Count];
         var unpaired = 0;
         foreach (var fix in assessment.Fixes)
         {
             if (fix.MarkId is { } markId && marksById.TryGetValue(markId, out var byId))
             {
+                markRows[pairs.Count] = byId;
                 pairs.Add(new MarkFixPair(assessment.Marks[byId], fix, ById));
                 continue;
             }
@@ -41,9 +50,14 @@ public static class MarkPairing
             if (nearest < 0)
                 unpaired++;
             else
+            {
+                markRows[pairs.Count] = nearest;
                 pairs.Add(new MarkFixPair(assessment.Marks[nearest], fix, ByProximity, others));
+            }
         }
-        return (pairs, unpaired);
+        if (pairs.Count < markRows.Length)
+            Array.Resize(ref markRows, pairs.Count);
+        return (pairs, markRows, unpaired);
     }
 
     /// <summary>The nearest mark within the radius (nearest wins) and the ids of any other marks also within it.</summary>

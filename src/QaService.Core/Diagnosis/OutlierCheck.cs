@@ -36,13 +36,13 @@ public sealed class OutlierCheck : IDataCheck
         if (included.Count < MinimumPoints)
             return new CheckResult(Id, CheckStatus.Warn, $"fewer than {MinimumPoints} residuals: blunders cannot be told from spread");
 
+        var columns = context.Columns;
         var flagged = new SortedSet<string>(StringComparer.Ordinal);
         var largest = 0.0;
-        largest = Math.Max(largest, Flag(included, r => r.DE, flagged));
-        largest = Math.Max(largest, Flag(included, r => r.DN, flagged));
-        var withHeight = included.Where(r => r.DU is not null).ToList();
-        if (withHeight.Count >= MinimumPoints)
-            largest = Math.Max(largest, Flag(withHeight, r => r.DU!.Value, flagged));
+        largest = Math.Max(largest, Flag(columns.East, i => included[i].Fix, flagged));
+        largest = Math.Max(largest, Flag(columns.North, i => included[i].Fix, flagged));
+        if (columns.Up.Length >= MinimumPoints)
+            largest = Math.Max(largest, Flag(columns.Up, i => included[columns.UpRows[i]].Fix, flagged));
 
         if (flagged.Count == 0)
         {
@@ -54,9 +54,10 @@ public sealed class OutlierCheck : IDataCheck
             largest, ModifiedZLimit, "modified z", flagged.ToArray());
     }
 
-    private static double Flag(IReadOnlyList<Residual> residuals, Func<Residual, double> component, SortedSet<string> flagged)
+    /// <param name="values">One component of the residuals, m.</param>
+    /// <param name="fixOf">Fix id of the residual behind values[i].</param>
+    private static double Flag(double[] values, Func<int, string> fixOf, SortedSet<string> flagged)
     {
-        var values = residuals.Select(component).ToArray();
         var median = Percentile.LinearInterpolation(values, 0.5);
         var deviations = values.Select(v => Math.Abs(v - median)).ToArray();
         var mad = Percentile.LinearInterpolation(deviations, 0.5);
@@ -69,7 +70,7 @@ public sealed class OutlierCheck : IDataCheck
             var z = Math.Abs(values[i] - median) / scale;
             largest = Math.Max(largest, z);
             if (z > ModifiedZLimit)
-                flagged.Add(residuals[i].Fix);
+                flagged.Add(fixOf(i));
         }
         return largest;
     }
