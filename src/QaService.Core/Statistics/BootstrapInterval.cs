@@ -49,14 +49,20 @@ public static class BootstrapInterval
 
         int n = values.Length;
         double tail = (1.0 - level) / 2.0;
+        if (n > MonteCarloLimit)
+        {
+            // The limit needs four order statistics, not the whole order: selected in ascending rank (the lower bound's
+            // ranks come first, z < 0), they are the values a sort would give.
+            var ranks = new OrderStatistic.AscendingRanks(values.ToArray());
+            double lowerBound = AtRank(ref ranks, n, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, tail));
+            return (lowerBound, AtRank(ref ranks, n, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, 1.0 - tail)));
+        }
+
         var sorted = values.ToArray();
         var rank = new int[n];
         for (int i = 0; i < n; i++)
             rank[i] = i;
         Array.Sort(sorted, rank);
-        if (n > MonteCarloLimit)
-            return (AtRank(sorted, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, tail)),
-                AtRank(sorted, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, 1.0 - tail)));
 
         // positionOf[i]: where values[i] sits in sorted order, so a draw of index i is tallied at its rank.
         var positionOf = new int[n];
@@ -232,11 +238,14 @@ public static class BootstrapInterval
         public int this[int rank] => drawn[offset + indexAtRank[rank]];
     }
 
-    private static double AtRank(double[] sorted, double quantile, double z)
+    /// <summary>The sample interpolated (type-7 style) at rank (n − 1)·quantile + z·√(n·quantile·(1 − quantile)), clamped to the sample.</summary>
+    private static double AtRank(ref OrderStatistic.AscendingRanks ranks, int n, double quantile, double z)
     {
-        int n = sorted.Length;
         double position = Math.Clamp(((n - 1) * quantile) + (z * Math.Sqrt(n * quantile * (1.0 - quantile))), 0.0, n - 1);
         int below = (int)Math.Floor(position);
-        return below >= n - 1 ? sorted[^1] : sorted[below] + ((position - below) * (sorted[below + 1] - sorted[below]));
+        if (below >= n - 1)
+            return ranks.At(n - 1);
+        double belowValue = ranks.At(below);
+        return belowValue + ((position - below) * (ranks.At(below + 1) - belowValue));
     }
 }
