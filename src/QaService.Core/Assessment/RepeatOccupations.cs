@@ -12,11 +12,14 @@ public static class RepeatOccupations
 {
     /// <summary>Precision per mark with at least two counted occupations, in mark order of first appearance.</summary>
     public static IReadOnlyList<OccupationPrecision> Precision(IReadOnlyList<Residual> included) =>
-        Precision(included, MarkGroups.ById(included));
+        Precision(ResidualColumns.Of([], included));
 
-    /// <summary>The same for residuals already grouped by mark (each group's values taken in residual order).</summary>
-    internal static IReadOnlyList<OccupationPrecision> Precision(IReadOnlyList<Residual> included, MarkGroups groups)
+    /// <summary>The same from the counted residuals' columns (each mark's values taken in residual order).</summary>
+    internal static IReadOnlyList<OccupationPrecision> Precision(ResidualColumns counted)
     {
+        var (groups, east, north) = (counted.Groups, counted.East, counted.North);
+        // dU read from the column when every residual (or none) has one; otherwise from each residual.
+        var upColumn = counted.Up.Length == east.Length ? counted.Up : null;
         var result = new List<OccupationPrecision>();
         for (var g = 0; g < groups.Count; g++)
         {
@@ -25,13 +28,15 @@ public static class RepeatOccupations
                 continue;
             var e = new double[members.Length];
             var n = new double[members.Length];
-            var u = new List<double>(members.Length);
+            var u = new List<double>(counted.Up.Length == 0 ? 0 : members.Length);
             for (var k = 0; k < members.Length; k++)
             {
-                var r = included[members[k]];
-                e[k] = r.DE;
-                n[k] = r.DN;
-                if (r.DU is { } up)
+                var row = members[k];
+                e[k] = east[row];
+                n[k] = north[row];
+                if (upColumn is not null)
+                    u.Add(upColumn[row]);
+                else if (counted.Up.Length > 0 && counted.Rows[row].DU is { } up)
                     u.Add(up);
             }
             var upValues = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(u);

@@ -36,13 +36,22 @@ public sealed class OutlierCheck : IDataCheck
         if (included.Count < MinimumPoints)
             return new CheckResult(Id, CheckStatus.Warn, $"fewer than {MinimumPoints} residuals: blunders cannot be told from spread");
 
+        // The components are judged independently (each its own medians and flags), so side by side for large uploads;
+        // the flags are then merged into one sorted set and the largest score taken, as one after the other would.
         var columns = context.Columns;
-        var flagged = new SortedSet<string>(StringComparer.Ordinal);
-        var largest = 0.0;
-        largest = Math.Max(largest, Flag(columns.East, i => included[i].Fix, flagged));
-        largest = Math.Max(largest, Flag(columns.North, i => included[i].Fix, flagged));
-        if (columns.Up.Length >= MinimumPoints)
-            largest = Math.Max(largest, Flag(columns.Up, i => included[columns.UpRows[i]].Fix, flagged));
+        var (flaggedE, flaggedN, flaggedU) = (NewFlagSet(), NewFlagSet(), NewFlagSet());
+        double largestE = 0, largestN = 0, largestU = 0;
+        var withHeight = columns.Up.Length >= MinimumPoints;
+        ParallelWork.Invoke(included.Count >= ParallelWork.MinimumRange,
+            () => largestE = Flag(columns.East, i => included[i].Fix, flaggedE),
+            () => largestN = Flag(columns.North, i => included[i].Fix, flaggedN),
+            () => largestU = withHeight ? Flag(columns.Up, i => included[columns.UpRows[i]].Fix, flaggedU) : 0);
+        var flagged = flaggedE;
+        flagged.UnionWith(flaggedN);
+        flagged.UnionWith(flaggedU);
+        var largest = Math.Max(Math.Max(0.0, largestE), largestN);
+        if (withHeight)
+            largest = Math.Max(largest, largestU);
 
         if (flagged.Count == 0)
         {
@@ -53,6 +62,8 @@ public sealed class OutlierCheck : IDataCheck
             Format($"{flagged.Count} fix(es) lie far outside the rest (modified z-score above {ModifiedZLimit}): {string.Join(", ", flagged)}. Check them for blunders (wrong mark, unapplied antenna height, float solution); exclude them only with a documented reason"),
             largest, ModifiedZLimit, "modified z", flagged.ToArray());
     }
+
+    private static SortedSet<string> NewFlagSet() => new(StringComparer.Ordinal);
 
     /// <param name="values">One component of the residuals, m.</param>
     /// <param name="fixOf">Fix id of the residual behind values[i].</param>
