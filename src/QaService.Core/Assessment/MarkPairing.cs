@@ -33,12 +33,21 @@ public static class MarkPairing
         for (var i = 0; i < assessment.Marks.Count; i++)
             marksById[assessment.Marks[i].Id] = i;
 
-        var pairs = new List<MarkFixPair>(assessment.Fixes.Count);
-        var markRows = new int[assessment.Fixes.Count];
-        var unpaired = 0;
-        foreach (var fix in assessment.Fixes)
+        var fixes = assessment.Fixes;
+        var pairs = new List<MarkFixPair>(fixes.Count);
+        // The named marks are looked up side by side (reads only, one slot per fix); the pairs are then made in fix order,
+        // each fix's row moved down to its pair's slot (never above the fix's own index, so nothing is overwritten early).
+        var markRows = new int[fixes.Count];
+        ParallelWork.ForRanges(fixes.Count, (start, end) =>
         {
-            if (fix.MarkId is { } markId && marksById.TryGetValue(markId, out var byId))
+            for (var i = start; i < end; i++)
+                markRows[i] = fixes[i].MarkId is { } markId && marksById.TryGetValue(markId, out var row) ? row : -1;
+        });
+        var unpaired = 0;
+        for (var f = 0; f < fixes.Count; f++)
+        {
+            var fix = fixes[f];
+            if (markRows[f] is var byId and >= 0)
             {
                 markRows[pairs.Count] = byId;
                 pairs.Add(new MarkFixPair(assessment.Marks[byId], fix, ById));

@@ -77,14 +77,19 @@ public static class ReportFigures
             return null;
         var set = flagged.ToHashSet(StringComparer.Ordinal);
         var rows = columns.Rows;
+        // Which rows stay is looked up side by side (one slot each); the kept values are then gathered in row order.
         var keptRow = new bool[rows.Count];
+        ParallelWork.ForRanges(rows.Count, (start, end) =>
+        {
+            for (var i = start; i < end; i++)
+                keptRow[i] = !set.Contains(rows[i].Fix);
+        });
         var keptE = new List<double>(rows.Count);
         var keptN = new List<double>(rows.Count);
         for (var i = 0; i < rows.Count; i++)
         {
-            if (set.Contains(rows[i].Fix))
+            if (!keptRow[i])
                 continue;
-            keptRow[i] = true;
             keptE.Add(columns.East[i]);
             keptN.Add(columns.North[i]);
         }
