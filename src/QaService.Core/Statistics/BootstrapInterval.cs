@@ -15,7 +15,8 @@ namespace QaService.Core.Statistics;
 /// Binomial(n, j/n) ≥ k (Hutson &amp; Ernst 2000, "The exact bootstrap mean and variance of an L-estimator", J. R. Stat.
 /// Soc. B 62(1):89–94, doi:10.1111/1467-9868.00221), which for large n is normal with rank spread √(np(1 − p));
 /// the bounds are the type-7 interpolated order statistics at ranks h ± z·√(np(1 − p)) (the distribution-free quantile
-/// interval, Conover 1999, Practical Nonparametric Statistics, 3rd ed., §3.2). Relative rank error O(1/√n).
+/// interval, Conover 1999, Practical Nonparametric Statistics, 3rd ed., §3.2), four order statistics read by selection, O(n),
+/// not a sort. Relative rank error O(1/√n).
 /// </summary>
 public static class BootstrapInterval
 {
