@@ -22,16 +22,34 @@ public static class MarkPairing
     /// </summary>
     public static (IReadOnlyList<MarkFixPair> Pairs, int Unpaired) Pair(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
     {
+        var (pairs, _, unpaired) = PairWithRows(assessment, markGeocentric);
+        return (pairs, unpaired);
+    }
+
+    /// <summary>As <see cref="Pair"/>, with the row in <c>Marks</c> of each pair's mark (so no caller looks the id up again).</summary>
+    internal static (List<MarkFixPair> Pairs, int[] MarkRows, int Unpaired) PairWithRows(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
+    {
         var marksById = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < assessment.Marks.Count; i++)
             marksById[assessment.Marks[i].Id] = i;
 
-        var pairs = new List<MarkFixPair>(assessment.Fixes.Count);
-        var unpaired = 0;
-        foreach (var fix in assessment.Fixes)
+        var fixes = assessment.Fixes;
+        var pairs = new List<MarkFixPair>(fixes.Count);
+        // The named marks are looked up side by side (reads only, one slot per fix); the pairs are then made in fix order,
+        // each fix's row moved down to its pair's slot (never above the fix's own index, so nothing is overwritten early).
+        var markRows = new int[fixes.Count];
+        ParallelWork.ForRanges(fixes.Count, (start, end) =>
         {
-            if (fix.MarkId is { } markId && marksById.TryGetValue(markId, out var byId))
+            for (var i = start; i < end; i++)
+                markRows[i] = fixes[i].MarkId is { } markId && marksById.TryGetValue(markId, out var row) ? row : -1;
+        });
+        var unpaired = 0;
+        for (var f = 0; f < fixes.Count; f++)
+        {
+            var fix = fixes[f];
+            if (markRows[f] is var byId and >= 0)
             {
+                markRows[pairs.Count] = byId;
                 pairs.Add(new MarkFixPair(assessment.Marks[byId], fix, ById));
                 continue;
             }
@@ -41,9 +59,14 @@ public static class MarkPairing
             if (nearest < 0)
                 unpaired++;
             else
+            {
+                markRows[pairs.Count] = nearest;
                 pairs.Add(new MarkFixPair(assessment.Marks[nearest], fix, ByProximity, others));
+            }
         }
-        return (pairs, unpaired);
+        if (pairs.Count < markRows.Length)
+            Array.Resize(ref markRows, pairs.Count);
+        return (pairs, markRows, unpaired);
     }
 
     /// <summary>The nearest mark within the radius (nearest wins) and the ids of any other marks also within it.</summary>

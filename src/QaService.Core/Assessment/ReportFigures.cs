@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using QaService.Core.Reporting;
 using QaService.Core.Standards;
 using QaService.Core.Statistics;
@@ -14,32 +15,38 @@ public static class ReportFigures
         OffsetRadii? OffsetModel, OutlierSensitivity? OutlierSensitivity);
 
     public static Blocks Compute(ValidatedAssessment input, IReadOnlyList<Residual> included, HorizontalAccuracy? horizontal,
+        VerticalAccuracy? vertical, IReadOnlyList<CheckResult> checks) =>
+        Compute(input, ResidualColumns.Of(input.Marks, included), horizontal, vertical, checks);
+
+    /// <summary>The same from the columns the runner already took from the included residuals.</summary>
+    internal static Blocks Compute(ValidatedAssessment input, ResidualColumns columns, HorizontalAccuracy? horizontal,
         VerticalAccuracy? vertical, IReadOnlyList<CheckResult> checks)
     {
         if (horizontal is null)
             return new Blocks(null, null, null, null, null);
-        var dE = included.Select(r => r.DE).ToArray();
-        var dN = included.Select(r => r.DN).ToArray();
-        var dU = vertical is null ? [] : included.Where(r => r.DU is not null).Select(r => r.DU!.Value).ToArray();
+        var (dE, dN) = (columns.East, columns.North);
+        var dU = vertical is null ? [] : columns.Up;
         double meanSquareE = SampleMoments.MeanSquareAboutZero(dE), meanSquareN = SampleMoments.MeanSquareAboutZero(dN);
 
-        var marks = TestedMarks.Of(input.Marks, included);
+        var marks = columns.TestedMarks;
         var spec = input.Spec;
-        var standardInput = new StandardInput(horizontal, vertical,
-            included.Select(r => r.DH).ToArray(), dU.Select(Math.Abs).ToArray(),
+        var absoluteUp = new double[dU.Length];
+        for (var i = 0; i < dU.Length; i++)
+            absoluteUp[i] = Math.Abs(dU[i]);
+        var standardInput = new StandardInput(horizontal, vertical, columns.Radial, absoluteUp,
             marks.Select(m => m.SigmaHorizontalMetres).ToArray(), marks.Select(m => m.SigmaVerticalMetres).ToArray(),
             spec?.HorizontalMetres, spec?.VerticalMetres, spec?.MapScaleDenominator, spec?.ContourIntervalMetres,
             input.MarksFrame.Crs.Unit);
         var standard = AccuracyStandards.Evaluate(spec?.Standard ?? AccuracyStandards.NssdaId, standardInput);
         ConfidenceSummary? confidence = null;
-        if (included.Count >= 2)
+        if (columns.Rows.Count >= 2)
         {
             (confidence, standard) = StandardConfidence.Apply(standard, standardInput, spec?.Confidence ?? StandardConfidence.DefaultLevel,
                 spec?.Confidence is not null, meanSquareE, meanSquareN);
         }
 
         var approximations = CircularErrorApproximations.For(meanSquareE, meanSquareN, SampleMoments.MeanProductAboutZero(dE, dN), horizontal);
-        return new Blocks(standard, confidence, approximations, OffsetModelOrNull(dE, dN, dU), Sensitivity(included, horizontal, vertical, checks));
+        return new Blocks(standard, confidence, approximations, OffsetModelOrNull(dE, dN, dU), Sensitivity(columns, horizontal, vertical, checks));
     }
 
     /// <summary>
@@ -58,16 +65,49 @@ public static class ReportFigures
         }
     }
 
-    private static OutlierSensitivity? Sensitivity(IReadOnlyList<Residual> included, HorizontalAccuracy horizontal, VerticalAccuracy? vertical, IReadOnlyList<CheckResult> checks)
+    /// <summary>
+    /// The figures again without the flagged fixes. Only RMSE_r, nssda95 and the vertical RMSE are shown, so only they
+    /// are recomputed — by the same estimators and sums, in the same order, as <see cref="HorizontalAccuracy.Compute"/>
+    /// and <see cref="SampleMoments.RootMeanSquareAboutZero"/> (FGDC-STD-007.3-1998 appendix 3-A), without its sort.
+    /// </summary>
+    private static OutlierSensitivity? Sensitivity(ResidualColumns columns, HorizontalAccuracy horizontal, VerticalAccuracy? vertical, IReadOnlyList<CheckResult> checks)
     {
         var flagged = checks.FirstOrDefault(c => c.Id == "outliers")?.Items;
         if (flagged is null || flagged.Count == 0)
             return null;
         var set = flagged.ToHashSet(StringComparer.Ordinal);
-        var kept = included.Where(r => !set.Contains(r.Fix)).ToList();
-        HorizontalAccuracy? without = kept.Count == 0 ? null : HorizontalAccuracy.Compute(kept.Select(r => r.DE).ToArray(), kept.Select(r => r.DN).ToArray());
-        var keptUp = kept.Where(r => r.DU is not null).Select(r => r.DU!.Value).ToArray();
-        return new OutlierSensitivity(flagged, horizontal.RmseR, without?.RmseR, horizontal.Nssda95, without?.Nssda95,
-            vertical?.Rmse, vertical is null || keptUp.Length == 0 ? null : SampleMoments.RootMeanSquareAboutZero(keptUp));
+        var rows = columns.Rows;
+        // Which rows stay is looked up side by side (one slot each); the kept values are then gathered in row order.
+        var keptRow = new bool[rows.Count];
+        ParallelWork.ForRanges(rows.Count, (start, end) =>
+        {
+            for (var i = start; i < end; i++)
+                keptRow[i] = !set.Contains(rows[i].Fix);
+        });
+        var keptE = new List<double>(rows.Count);
+        var keptN = new List<double>(rows.Count);
+        for (var i = 0; i < rows.Count; i++)
+        {
+            if (!keptRow[i])
+                continue;
+            keptE.Add(columns.East[i]);
+            keptN.Add(columns.North[i]);
+        }
+        var keptUp = new List<double>(columns.Up.Length);
+        for (var j = 0; j < columns.Up.Length; j++)
+        {
+            if (keptRow[columns.UpRows[j]])
+                keptUp.Add(columns.Up[j]);
+        }
+        double? rmseRWithout = null, nssda95Without = null;
+        if (keptE.Count > 0)
+        {
+            double meanSquareE = SampleMoments.MeanSquareAboutZero(CollectionsMarshal.AsSpan(keptE));
+            double meanSquareN = SampleMoments.MeanSquareAboutZero(CollectionsMarshal.AsSpan(keptN));
+            rmseRWithout = Math.Sqrt(meanSquareE + meanSquareN);
+            nssda95Without = Nssda.Horizontal(Math.Sqrt(meanSquareE), Math.Sqrt(meanSquareN)).Accuracy95Metres;
+        }
+        return new OutlierSensitivity(flagged, horizontal.RmseR, rmseRWithout, horizontal.Nssda95, nssda95Without,
+            vertical?.Rmse, vertical is null || keptUp.Count == 0 ? null : SampleMoments.RootMeanSquareAboutZero(CollectionsMarshal.AsSpan(keptUp)));
     }
 }

@@ -11,7 +11,11 @@ namespace QaService.Core.Assessment;
 /// </summary>
 public static class ResidualComputation
 {
-    public static Residual Compute(MarkFixPair pair, GeocentricCoordinate markGeocentric, Ellipsoid ellipsoid, string? exclusionReason)
+    public static Residual Compute(MarkFixPair pair, GeocentricCoordinate markGeocentric, Ellipsoid ellipsoid, string? exclusionReason) =>
+        Compute(pair, TopocentricFrame.At(markGeocentric, pair.Mark.Geodetic), ellipsoid, exclusionReason);
+
+    /// <summary>The residual of <paramref name="pair"/> in the mark's frame, built once per mark by the caller (many fixes share a mark).</summary>
+    public static Residual Compute(MarkFixPair pair, in TopocentricFrame markFrame, Ellipsoid ellipsoid, string? exclusionReason)
     {
         var mark = pair.Mark;
         var fix = pair.Fix;
@@ -20,7 +24,7 @@ public static class ResidualComputation
         // Without both heights, take the fix at the mark's height: a height difference would otherwise
         // leak into the horizontal components through the tilt between the two ellipsoid normals.
         var fixGeodetic = hasVertical ? fix.Geodetic : fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
-        var enu = LocalTangentPlane.Difference(markGeocentric, mark.Geodetic, GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
+        var enu = markFrame.Difference(GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
         var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
         return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, hasVertical ? enu.UpMetres : null, horizontal,
             pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees);

@@ -10,4 +10,11 @@ public static class TestedMarks
         var markIds = included.Select(r => r.Mark).ToHashSet(StringComparer.Ordinal);
         return marks.Where(m => markIds.Contains(m.Id)).ToList();
     }
+
+    /// <summary>The same from residuals already grouped by mark: one id per mark to hash, not one per residual.</summary>
+    internal static List<FramedPoint> Of(IReadOnlyList<FramedPoint> marks, MarkGroups groups)
+    {
+        var markIds = groups.MarkIds.ToHashSet(StringComparer.Ordinal);
+        return marks.Where(m => markIds.Contains(m.Id)).ToList();
+    }
 }

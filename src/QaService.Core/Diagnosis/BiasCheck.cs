@@ -30,8 +30,8 @@ public sealed class BiasCheck : IDataCheck
         if (included.Count < 3)
             return new CheckResult(Id, CheckStatus.Warn, "fewer than three residuals: a systematic offset cannot be tested");
 
-        var horizontal = HotellingTest.AgainstZero(included.Select(r => r.DE).ToArray(), included.Select(r => r.DN).ToArray(), SignificanceLevel);
-        var upValues = included.Where(r => r.DU is not null).Select(r => r.DU!.Value).ToArray();
+        var horizontal = context.Columns.MeanOffsetTest;
+        var upValues = context.Columns.Up;
         var up = upValues.Length >= 2 ? TTest(upValues) : null;
 
         var findings = new List<string>();

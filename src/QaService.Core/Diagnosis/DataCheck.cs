@@ -10,7 +10,29 @@ public sealed record CheckContext(
     ValidatedAssessment Input,
     IReadOnlyList<Residual> Included,
     HorizontalAccuracy? Horizontal,
-    VerticalAccuracy? Vertical);
+    VerticalAccuracy? Vertical)
+{
+    private ResidualColumns? columns;
+
+    /// <summary>A copy (<c>with</c>) leaves the columns behind: they belong to the original's residuals.</summary>
+    private CheckContext(CheckContext original)
+    {
+        Input = original.Input;
+        Included = original.Included;
+        Horizontal = original.Horizontal;
+        Vertical = original.Vertical;
+    }
+
+    /// <summary>
+    /// <see cref="Included"/> as arrays with the results several checks share; the runner hands over the ones it built,
+    /// otherwise they are made from <see cref="Included"/> on first use.
+    /// </summary>
+    internal ResidualColumns Columns
+    {
+        get => LazyInitializer.EnsureInitialized(ref columns, () => ResidualColumns.Of(Input.Marks, Included));
+        init => columns = value;
+    }
+}
 
 /// <summary>One diagnosis of the data. A check never throws for odd data: it reports it.</summary>
 public interface IDataCheck

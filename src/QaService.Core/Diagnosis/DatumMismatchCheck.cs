@@ -34,9 +34,7 @@ public sealed class DatumMismatchCheck : IDataCheck
     public CheckResult Evaluate(CheckContext context)
     {
         var included = context.Included;
-        var test = included.Count >= 3
-            ? HotellingTest.AgainstZero(included.Select(r => r.DE).ToArray(), included.Select(r => r.DN).ToArray(), BiasCheck.SignificanceLevel)
-            : null;
+        var test = context.Columns.MeanOffsetTest;
         if (test is null || !test.Significant)
             return new CheckResult(Id, CheckStatus.Pass, "no significant horizontal offset, so no frame mismatch to explain");
         var shift = Math.Sqrt(test.MeanE * test.MeanE + test.MeanN * test.MeanN);
@@ -44,11 +42,11 @@ public sealed class DatumMismatchCheck : IDataCheck
             return new CheckResult(Id, CheckStatus.Pass, Format($"the mean offset ({shift:F3} m) is smaller than any frame difference the service can tell apart"), shift, SmallestTellingShiftMetres, "m");
 
         var input = context.Input;
-        var marks = TestedMarks.Of(input.Marks, included).Select(m => m.Geodetic).ToList();
+        var marks = context.Columns.TestedMarks.Select(m => m.Geodetic).ToList();
         var centroid = new GeodeticCoordinate(marks.Average(g => g.LatitudeDegrees), marks.Average(g => g.LongitudeDegrees), marks.Average(g => g.EllipsoidalHeightMetres));
         var epoch = input.FixesFrame.EpochDecimalYear ?? input.MarksFrame.EpochDecimalYear
                     ?? input.Fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).DefaultIfEmpty(double.NaN).Average();
-        var sd = Math.Sqrt((Variance(included.Select(r => r.DE)) + Variance(included.Select(r => r.DN))) / 2);
+        var sd = Math.Sqrt((Variance(context.Columns.East) + Variance(context.Columns.North)) / 2);
         var standardError = sd / Math.Sqrt(included.Count);
 
         var candidates = FrameShifts.Candidates(input.MarksFrame.Crs, input.FixesFrame.Crs, centroid, epoch)
@@ -73,11 +71,10 @@ public sealed class DatumMismatchCheck : IDataCheck
             best.Distance, Math.Max(Math.Max(3 * standardError, RelativeTolerance * best.Candidate.ShiftMetres), MinimumToleranceMetres), "m");
     }
 
-    private static double Variance(IEnumerable<double> values)
+    private static double Variance(double[] values)
     {
-        var list = values.ToList();
-        var mean = list.Average();
-        return list.Count < 2 ? 0 : list.Sum(v => (v - mean) * (v - mean)) / (list.Count - 1);
+        var mean = values.Average();
+        return values.Length < 2 ? 0 : values.Sum(v => (v - mean) * (v - mean)) / (values.Length - 1);
     }
 }
 

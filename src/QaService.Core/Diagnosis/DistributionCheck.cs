@@ -28,7 +28,7 @@ public sealed class DistributionCheck : IDataCheck
 
     public CheckResult Evaluate(CheckContext context)
     {
-        var marks = TestedMarks.Of(context.Input.Marks, context.Included);
+        var marks = context.Columns.TestedMarks;
         if (marks.Count < MinimumMarks)
             return new CheckResult(Id, CheckStatus.Warn, $"{marks.Count} distinct mark(s) tested: too few to judge how they cover the area", marks.Count, MinimumMarks, "marks");
 

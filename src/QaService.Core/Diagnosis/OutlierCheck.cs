@@ -36,13 +36,22 @@ public sealed class OutlierCheck : IDataCheck
         if (included.Count < MinimumPoints)
             return new CheckResult(Id, CheckStatus.Warn, $"fewer than {MinimumPoints} residuals: blunders cannot be told from spread");
 
-        var flagged = new SortedSet<string>(StringComparer.Ordinal);
-        var largest = 0.0;
-        largest = Math.Max(largest, Flag(included, r => r.DE, flagged));
-        largest = Math.Max(largest, Flag(included, r => r.DN, flagged));
-        var withHeight = included.Where(r => r.DU is not null).ToList();
-        if (withHeight.Count >= MinimumPoints)
-            largest = Math.Max(largest, Flag(withHeight, r => r.DU!.Value, flagged));
+        // The components are judged independently (each its own medians and flags), so side by side for large uploads;
+        // the flags are then merged into one sorted set and the largest score taken, as one after the other would.
+        var columns = context.Columns;
+        var (flaggedE, flaggedN, flaggedU) = (NewFlagSet(), NewFlagSet(), NewFlagSet());
+        double largestE = 0, largestN = 0, largestU = 0;
+        var withHeight = columns.Up.Length >= MinimumPoints;
+        ParallelWork.Invoke(included.Count >= ParallelWork.MinimumRange,
+            () => largestE = Flag(columns.East, i => included[i].Fix, flaggedE),
+            () => largestN = Flag(columns.North, i => included[i].Fix, flaggedN),
+            () => largestU = withHeight ? Flag(columns.Up, i => included[columns.UpRows[i]].Fix, flaggedU) : 0);
+        var flagged = flaggedE;
+        flagged.UnionWith(flaggedN);
+        flagged.UnionWith(flaggedU);
+        var largest = Math.Max(Math.Max(0.0, largestE), largestN);
+        if (withHeight)
+            largest = Math.Max(largest, largestU);
 
         if (flagged.Count == 0)
         {
@@ -54,9 +63,12 @@ public sealed class OutlierCheck : IDataCheck
             largest, ModifiedZLimit, "modified z", flagged.ToArray());
     }
 
-    private static double Flag(IReadOnlyList<Residual> residuals, Func<Residual, double> component, SortedSet<string> flagged)
+    private static SortedSet<string> NewFlagSet() => new(StringComparer.Ordinal);
+
+    /// <param name="values">One component of the residuals, m.</param>
+    /// <param name="fixOf">Fix id of the residual behind values[i].</param>
+    private static double Flag(double[] values, Func<int, string> fixOf, SortedSet<string> flagged)
     {
-        var values = residuals.Select(component).ToArray();
         var median = Percentile.LinearInterpolation(values, 0.5);
         var deviations = values.Select(v => Math.Abs(v - median)).ToArray();
         var mad = Percentile.LinearInterpolation(deviations, 0.5);
@@ -69,7 +81,7 @@ public sealed class OutlierCheck : IDataCheck
             var z = Math.Abs(values[i] - median) / scale;
             largest = Math.Max(largest, z);
             if (z > ModifiedZLimit)
-                flagged.Add(residuals[i].Fix);
+                flagged.Add(fixOf(i));
         }
         return largest;
     }

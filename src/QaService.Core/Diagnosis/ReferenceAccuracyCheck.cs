@@ -22,7 +22,7 @@ public sealed class ReferenceAccuracyCheck : IDataCheck
 
     public CheckResult Evaluate(CheckContext context)
     {
-        var marks = TestedMarks.Of(context.Input.Marks, context.Included);
+        var marks = context.Columns.TestedMarks;
         if (marks.Count == 0)
             return new CheckResult(Id, CheckStatus.Warn, "no paired marks: their accuracy cannot be judged");
 

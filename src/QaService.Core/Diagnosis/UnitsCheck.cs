@@ -1,4 +1,5 @@
 using static QaService.Core.InvariantText;
+using QaService.Core.Assessment;
 using QaService.Core.Geodesy;
 using QaService.Core.Geodesy.Catalog;
 using QaService.Core.Geodesy.Projections;
@@ -44,7 +45,8 @@ public sealed class UnitsCheck : IDataCheck
         var input = context.Input;
         var marksById = input.Marks.ToDictionary(m => m.Id, StringComparer.Ordinal);
 
-        var medianDh = Statistics.Percentile.LinearInterpolation(included.Select(r => r.DH).ToArray(), 0.5);
+        var columns = context.Columns;
+        var medianDh = Statistics.Percentile.LinearInterpolation(columns.Radial, 0.5);
         if (medianDh >= GrossResidualMetres)
         {
             var fixesById = input.Fixes.GroupBy(f => f.Id, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
@@ -65,19 +67,22 @@ public sealed class UnitsCheck : IDataCheck
         var gridCrs = input.FixesFrame.Crs.Projection is not null ? input.FixesFrame.Crs : input.MarksFrame.Crs.Projection is not null ? input.MarksFrame.Crs : null;
         if (gridCrs?.Projection is { } projection)
         {
-            // Sums gathered per mark first, so each mark is projected once rather than once per fix.
-            var perMark = new Dictionary<string, (double SumDE, double SumDN, int Count)>(StringComparer.Ordinal);
+            // Sums gathered per mark first (in residual order), so each mark is projected once rather than once per fix;
+            // the marks are then taken in order of first appearance.
+            var (east, north, groups) = (columns.East, columns.North, columns.Groups);
+            var perMark = new (double SumDE, double SumDN, int Count)[groups.Count];
             double syy = 0;
-            foreach (var r in included)
+            for (var i = 0; i < east.Length; i++)
             {
-                ref var sums = ref System.Runtime.InteropServices.CollectionsMarshal.GetValueRefOrAddDefault(perMark, r.Mark, out _);
-                sums = (sums.SumDE + r.DE, sums.SumDN + r.DN, sums.Count + 1);
-                syy += r.DE * r.DE + r.DN * r.DN;
+                ref var sums = ref perMark[groups.GroupOf[i]];
+                sums = (sums.SumDE + east[i], sums.SumDN + north[i], sums.Count + 1);
+                syy += east[i] * east[i] + north[i] * north[i];
             }
             double sxy = 0, sxx = 0;
-            foreach (var (markId, sums) in perMark)
+            for (var g = 0; g < perMark.Length; g++)
             {
-                var mark = marksById[markId].Geodetic;
+                var sums = perMark[g];
+                var mark = marksById[groups.MarkIds[g]].Geodetic;
                 var grid = projection.Forward(mark.LatitudeDegrees, mark.LongitudeDegrees);
                 sxy += sums.SumDE * grid.EastingMetres + sums.SumDN * grid.NorthingMetres;
                 sxx += sums.Count * (grid.EastingMetres * grid.EastingMetres + grid.NorthingMetres * grid.NorthingMetres);

@@ -28,24 +28,5 @@ public static class LocalTangentPlane
     /// </remarks>
     /// <exception cref="ArgumentOutOfRangeException">Latitude outside [−90, 90] or non-finite inputs.</exception>
     public static EnuVector Difference(GeocentricCoordinate origin, GeodeticCoordinate originGeodetic, GeocentricCoordinate target)
-    {
-        AngleMath.ValidateLatitude(originGeodetic.LatitudeDegrees, nameof(originGeodetic));
-        AngleMath.ValidateFinite(originGeodetic.LongitudeDegrees, nameof(originGeodetic));
-
-        double dx = target.XMetres - origin.XMetres;
-        double dy = target.YMetres - origin.YMetres;
-        double dz = target.ZMetres - origin.ZMetres;
-        AngleMath.ValidateFinite(dx, nameof(target));
-        AngleMath.ValidateFinite(dy, nameof(target));
-        AngleMath.ValidateFinite(dz, nameof(target));
-
-        (double sinPhi, double cosPhi) = AngleMath.SinCosDegrees(originGeodetic.LatitudeDegrees);
-        (double sinLam, double cosLam) = AngleMath.SinCosDegrees(originGeodetic.LongitudeDegrees);
-
-        double east = (-sinLam * dx) + (cosLam * dy);
-        double t = (cosLam * dx) + (sinLam * dy);
-        double north = (-sinPhi * t) + (cosPhi * dz);
-        double up = (cosPhi * t) + (sinPhi * dz);
-        return new EnuVector(east, north, up);
-    }
+        => TopocentricFrame.At(origin, originGeodetic).Difference(target);
 }

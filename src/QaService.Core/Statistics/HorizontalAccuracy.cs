@@ -71,13 +71,18 @@ public sealed record HorizontalAccuracy(
         double drms = Math.Sqrt(meanSquareE + meanSquareN);
         (double nssda95, string method) = Nssda.Horizontal(rmseE, rmseN);
 
-        double[] sortedRadial = new double[n];
+        double[] radial = new double[n];
         for (int i = 0; i < n; i++)
         {
-            sortedRadial[i] = double.Hypot(dEMetres[i], dNMetres[i]);
+            radial[i] = double.Hypot(dEMetres[i], dNMetres[i]);
         }
 
-        Array.Sort(sortedRadial);
+        // The three percentiles by selection in ascending order instead of a sort: the same order statistics, so the
+        // same values (dH ≥ +0, so there is no −0 whose place a sort might choose differently).
+        var ranks = new OrderStatistic.AscendingRanks(radial);
+        double p50 = Percentile.LinearInterpolation(ref ranks, n, CepProbability);
+        double p90 = Percentile.LinearInterpolation(ref ranks, n, Ce90Probability);
+        double p95 = Percentile.LinearInterpolation(ref ranks, n, R95Probability);
 
         return new HorizontalAccuracy(
             N: n,
@@ -95,8 +100,8 @@ public sealed record HorizontalAccuracy(
             Ce90: CircularErrorRadius.FromSecondMoments(Ce90Probability, meanSquareE, meanSquareN, meanProductEN),
             Drms: drms,
             TwoDrms: 2.0 * drms,
-            P50: Percentile.LinearInterpolationOfSorted(sortedRadial, CepProbability),
-            P90: Percentile.LinearInterpolationOfSorted(sortedRadial, Ce90Probability),
-            P95: Percentile.LinearInterpolationOfSorted(sortedRadial, R95Probability));
+            P50: p50,
+            P90: p90,
+            P95: p95);
     }
 }

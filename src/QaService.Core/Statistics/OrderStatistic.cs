@@ -66,4 +66,38 @@ internal static class OrderStatistic
 
     private static double MedianOfThree(double a, double b, double c) =>
         a < b ? (b < c ? b : a < c ? c : a) : (a < c ? a : b < c ? c : b);
+
+    /// <summary>
+    /// Order statistics read from one array at ranks that, apart from the last two read, never go down: each is selected in
+    /// the part the previous selection left above it, so the two ranks of each of a few ascending quantiles cost about
+    /// one selection over the array in all, not a sort. A selected rank stays in place, so the last two can be read again
+    /// (a quantile's lower rank may equal one of the previous quantile's). Each value is the one a sort would put at that rank.
+    /// </summary>
+    /// <param name="values">Finite values (no NaN), any unit; reordered in place.</param>
+    internal ref struct AscendingRanks(Span<double> values)
+    {
+        private readonly Span<double> values = values;
+
+        /// <summary>Every value below this index is ≤ every value from it on; index settled − 1 is the last rank selected.</summary>
+        private int settled;
+
+        /// <summary>The rank selected before the last one (in place too); −1 when none.</summary>
+        private int previous = -1;
+
+        /// <summary>The value of 0-based rank <paramref name="k"/>.</summary>
+        /// <exception cref="InvalidOperationException">k is below every rank still known to be in place.</exception>
+        public double At(int k)
+        {
+            if (k < settled)
+            {
+                if (k != settled - 1 && k != previous)
+                    throw new InvalidOperationException($"rank {k} asked after rank {settled - 1}: ranks must not go down");
+                return values[k];
+            }
+            var value = Select(values[settled..], k - settled);
+            previous = settled - 1;
+            settled = k + 1;
+            return value;
+        }
+    }
 }

@@ -47,6 +47,25 @@ public static class Percentile
         return sorted[lower] + (fraction * (sorted[lower + 1] - sorted[lower]));
     }
 
+    /// <summary>
+    /// Type-7 quantile read from order statistics selected in ascending rank order (see
+    /// <see cref="OrderStatistic.AscendingRanks"/>); the same interpolation, on the same two values, as
+    /// <see cref="LinearInterpolationOfSorted"/>. Successive calls must not decrease in <paramref name="probability"/>.
+    /// </summary>
+    internal static double LinearInterpolation(ref OrderStatistic.AscendingRanks ranks, int count, double probability)
+    {
+        double h = (count - 1) * probability;
+        int lower = (int)Math.Floor(h);
+        if (lower >= count - 1)
+        {
+            return ranks.At(count - 1);
+        }
+
+        double fraction = h - lower;
+        double below = ranks.At(lower);
+        return below + (fraction * (ranks.At(lower + 1) - below));
+    }
+
     internal static void RequireProbability(double probability)
     {
         if (!(probability >= 0.0 && probability <= 1.0))

@@ -61,4 +61,29 @@ public sealed class BootstrapTallyTests
         Assert.Equal(resampled.Upper, limit.Upper, 0.01);
         Assert.True(limit.Lower < Percentile.LinearInterpolation(values, 0.95) && Percentile.LinearInterpolation(values, 0.95) < limit.Upper);
     }
+
+    /// <summary>
+    /// Above the Monte Carlo limit the bounds are the sample interpolated at ranks h ± z·√(np(1 − p)) (Conover 1999 §3.2),
+    /// written out here on a full sort; the service reads the same order statistics by selection, so bit for bit equal.
+    /// </summary>
+    [Fact]
+    public void Large_sample_limit_equals_the_order_statistics_of_a_sort()
+    {
+        var values = Sample(BootstrapInterval.MonteCarloLimit * 3, 9);
+        foreach (var (quantile, level) in new[] { (0.95, 0.95), (0.5, 0.9), (0.99, 0.99), (1.0, 0.95) })
+        {
+            var sorted = values.ToArray();
+            Array.Sort(sorted);
+            double At(double z)
+            {
+                int n = sorted.Length;
+                double position = Math.Clamp(((n - 1) * quantile) + (z * Math.Sqrt(n * quantile * (1.0 - quantile))), 0.0, n - 1);
+                int below = (int)Math.Floor(position);
+                return below >= n - 1 ? sorted[^1] : sorted[below] + ((position - below) * (sorted[below + 1] - sorted[below]));
+            }
+            double tail = (1 - level) / 2;
+            var expected = (At(MathNet.Numerics.Distributions.Normal.InvCDF(0, 1, tail)), At(MathNet.Numerics.Distributions.Normal.InvCDF(0, 1, 1 - tail)));
+            Assert.Equal(expected, BootstrapInterval.OfQuantile(values, quantile, level));
+        }
+    }
 }

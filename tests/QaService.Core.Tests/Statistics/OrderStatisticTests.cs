@@ -63,4 +63,38 @@ public sealed class OrderStatisticTests
                 Assert.Equal(SortedType7(values, p), Percentile.LinearInterpolation(values, p));
         }
     }
+
+    [Theory]
+    [MemberData(nameof(Shapes))]
+    public void Ascending_ranks_give_the_values_a_sort_puts_there(string shape)
+    {
+        foreach (var n in new[] { 1, 2, 3, 7, 20, 10_000 })
+        {
+            var values = Values(shape, n);
+            var probabilities = new[] { 0.0, 0.05, 0.5, 0.5 + 1e-9, 0.9, 0.95, 0.975, 1.0 };
+            var ranks = new OrderStatistic.AscendingRanks(values.ToArray());
+            // Each quantile's two ranks, quantiles ascending: a quantile's lower rank may repeat one already read.
+            foreach (var p in probabilities)
+                Assert.Equal(SortedType7(values, p), Percentile.LinearInterpolation(ref ranks, n, p));
+        }
+    }
+
+    [Fact]
+    public void Ascending_ranks_refuse_a_rank_no_longer_in_place()
+    {
+        var ranks = new OrderStatistic.AscendingRanks(Values("random", 100));
+        ranks.At(10);
+        ranks.At(11);
+        ranks.At(50);
+        var threw = false;
+        try
+        {
+            ranks.At(10);
+        }
+        catch (InvalidOperationException)
+        {
+            threw = true;
+        }
+        Assert.True(threw);
+    }
 }
