@@ -95,6 +95,11 @@ public sealed class TransformApiTests(ServiceHost host) : IClassFixture<ServiceH
     [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ null ] }""", "/points/0", "not null")]
     [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": "north", "lon": 2 } ] }""", "/points/0/lat", "wrong type")]
     [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": 1, "lon": 2, "q": 3 } ] }""", "/points/0/q", "not a field")]
+    [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": 1, "lon": 2 }, { "lat": 1, "lon": 2, "lat": 3 } ] }""", "/points/1/lat", "appears twice")]
+    [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "Lat": 1, "lon": 2 } ] }""", "/points/0/Lat", "not a field")]
+    [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": 1e999, "lon": 2 } ] }""", "/points/0/lat", "outside -90..90")]
+    [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": [1], "lon": 2 } ] }""", "/points/0/lat", "wrong type")]
+    [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ 7 ] }""", "/points/0", "wrong type")]
     [InlineData("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": 1, "lon": 2 } """, "/points/1", "not valid JSON")]
     public async Task Bad_input_gets_a_problem_with_a_pointer(string json, string pointer, string fragment)
     {

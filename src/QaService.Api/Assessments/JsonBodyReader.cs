@@ -37,7 +37,7 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         }
         catch (JsonException exception)
         {
-            return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path), Describe(exception))]));
+            return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path) + MemberSuffix(exception), Describe(exception))]));
         }
         catch (BadHttpRequestException exception) when (exception.StatusCode == StatusCodes.Status413PayloadTooLarge)
         {
@@ -47,6 +47,10 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
 
     private IResult TooLarge() => InputProblems.Status(StatusCodes.Status413PayloadTooLarge, "Request body too large",
         string.Create(CultureInfo.InvariantCulture, $"the body is larger than the limit of {limits.Value.MaxBodyBytes} bytes (Limits:MaxBodyBytes)"));
+
+    /// <summary>The field a hand-written converter names (the serializer's path stops at the object it converts).</summary>
+    private static string MemberSuffix(JsonException exception) =>
+        exception.Data[Core.Transform.TransformPointJsonConverter.MemberKey] is string member ? "/" + member.Replace("~", "~0").Replace("/", "~1") : "";
 
     /// <summary>Messages without .NET type names: say what is wrong in JSON terms and where.</summary>
     private static string Describe(JsonException exception)

@@ -36,6 +36,8 @@ public static class ReportJson
         ReadCommentHandling = JsonCommentHandling.Disallow,
         AllowTrailingCommas = false,
         MaxDepth = MaximumRequestDepth,
+        // The points of a transform batch by hand (same strictness; see the converter), the rest by the serializer.
+        Converters = { new Transform.TransformPointJsonConverter() },
     });
 
     /// <summary>

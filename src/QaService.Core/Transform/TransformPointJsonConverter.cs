@@ -1,0 +1,71 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace QaService.Core.Transform;
+
+/// <summary>
+/// Reads one <see cref="TransformPoint"/> (a flat object of optional numbers) without the serializer's
+/// constructor-argument path, which dominated reading a 200,000-point body. Strict like <c>ReportJson.Read</c>:
+/// exact camelCase names, JSON numbers only, no unknown or repeated field. A failure names the field in
+/// <see cref="Exception.Data"/> under <see cref="MemberKey"/>, so the request's problem can point at
+/// <c>/points/3/lat</c>; the serializer adds the path up to the point.
+/// </summary>
+public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
+{
+    /// <summary>Key in <see cref="Exception.Data"/> of the field a reading error is about.</summary>
+    public const string MemberKey = "json-member";
+
+    private const int FieldCount = 8;
+
+    public override TransformPoint Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)
+    {
+        if (reader.TokenType != JsonTokenType.StartObject)
+            throw new JsonException("The JSON value could not be converted to a point object.");
+        Span<double> values = stackalloc double[FieldCount];
+        Span<bool> seen = stackalloc bool[FieldCount];
+        Span<bool> present = stackalloc bool[FieldCount];
+        while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
+        {
+            var field = FieldOf(ref reader);
+            if (field < 0)
+                throw Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
+            if (seen[field])
+                throw Failure("Duplicate property in a point.", Names[field]);
+            seen[field] = true;
+            reader.Read();
+            if (reader.TokenType == JsonTokenType.Null)
+                continue;
+            if (reader.TokenType != JsonTokenType.Number || !reader.TryGetDouble(out values[field]))
+                throw Failure("The JSON value could not be converted to a number.", Names[field]);
+            present[field] = true;
+        }
+        if (reader.TokenType != JsonTokenType.EndObject)
+            throw new JsonException("A point object is not closed.");
+        return new TransformPoint(
+            present[0] ? values[0] : null, present[1] ? values[1] : null, present[2] ? values[2] : null, present[3] ? values[3] : null,
+            present[4] ? values[4] : null, present[5] ? values[5] : null, present[6] ? values[6] : null, present[7] ? values[7] : null);
+    }
+
+    public override void Write(Utf8JsonWriter writer, TransformPoint value, JsonSerializerOptions options) =>
+        throw new NotSupportedException("transform points are read, not written, through this converter");
+
+    /// <summary>Field names in <see cref="TransformPoint"/> constructor order.</summary>
+    private static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];
+
+    private static int FieldOf(ref Utf8JsonReader reader)
+    {
+        for (var i = 0; i < Names.Length; i++)
+        {
+            if (reader.ValueTextEquals(Names[i]))
+                return i;
+        }
+        return -1;
+    }
+
+    private static JsonException Failure(string message, string member)
+    {
+        var exception = new JsonException(message);
+        exception.Data[MemberKey] = member;
+        return exception;
+    }
+}
