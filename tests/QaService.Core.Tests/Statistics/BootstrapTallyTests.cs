@@ -60,7 +60,8 @@ public sealed class BootstrapTallyTests
     public void Resamples_drawn_side_by_side_give_the_textbook_bounds(int n, int resamples, double quantile)
     {
         var values = Sample(n, 17);
-        Assert.Equal(Textbook(values, quantile, 0.95, resamples, 23), BootstrapInterval.OfQuantile(values, quantile, 0.95, resamples, 23));
+        foreach (var (level, seed) in new[] { (0.95, 23UL), (0.5, 24UL), (0.8, 25UL) })
+            Assert.Equal(Textbook(values, quantile, level, resamples, seed), BootstrapInterval.OfQuantile(values, quantile, level, resamples, seed));
     }
 
     /// <summary>The jump lands where the calls it skips would have (the generator's definition, Steele, Lea &amp; Flood 2014).</summary>
