@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using QaService.Core.Geodesy;
 
 namespace QaService.Core.Assessment;
@@ -18,7 +19,8 @@ public static class MarkPairing
 
     /// <summary>
     /// Horizontal distance is measured in the local east-north-up frame at each candidate mark, with
-    /// the fix taken at the mark's height so height differences do not count (common practice).
+    /// the fix taken at the mark's height so height differences do not count (common practice); a fix on the far side
+    /// of the Earth from a mark is never within its radius (<see cref="MarkNeighbourhood"/>).
     /// </summary>
     public static (IReadOnlyList<MarkFixPair> Pairs, int Unpaired) Pair(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
     {
@@ -35,77 +37,55 @@ public static class MarkPairing
 
         var fixes = assessment.Fixes;
         var pairs = new List<MarkFixPair>(fixes.Count);
-        // The named marks are looked up side by side (reads only, one slot per fix); the pairs are then made in fix order,
-        // each fix's row moved down to its pair's slot (never above the fix's own index, so nothing is overwritten early).
+        // Each fix's mark is found side by side (reads only, one slot per fix): a named mark's row, a nearby mark's row
+        // coded as NearbyCode(row), or Unpaired. The pairs are then made in fix order, each fix's row moved down to its
+        // pair's slot (never above the fix's own index, so nothing is overwritten early).
         var markRows = new int[fixes.Count];
+        var nearby = assessment.PairingRadiusMetres is { } radius && assessment.Marks.Count > 0
+            ? new MarkNeighbourhood(assessment.Marks, markGeocentric, assessment.MarksFrame.Crs.Ellipsoid, radius)
+            : null;
+        // Rare (marks closer together than the radius), so kept aside rather than one slot per fix.
+        var ambiguous = new ConcurrentDictionary<int, List<string>>();
         ParallelWork.ForRanges(fixes.Count, (start, end) =>
         {
+            var candidates = new List<int>();
             for (var i = start; i < end; i++)
-                markRows[i] = fixes[i].MarkId is { } markId && marksById.TryGetValue(markId, out var row) ? row : -1;
+            {
+                if (fixes[i].MarkId is { } markId && marksById.TryGetValue(markId, out var row))
+                {
+                    markRows[i] = row;
+                    continue;
+                }
+                var (nearest, others) = nearby?.Nearest(fixes[i], candidates) ?? (-1, null);
+                markRows[i] = nearest < 0 ? Unpaired : NearbyCode(nearest);
+                if (others is not null)
+                    ambiguous[i] = others;
+            }
         });
         var unpaired = 0;
         for (var f = 0; f < fixes.Count; f++)
         {
-            var fix = fixes[f];
-            if (markRows[f] is var byId and >= 0)
+            var code = markRows[f];
+            if (code == Unpaired)
             {
-                markRows[pairs.Count] = byId;
-                pairs.Add(new MarkFixPair(assessment.Marks[byId], fix, ById));
+                unpaired++;
                 continue;
             }
-            var (nearest, others) = assessment.PairingRadiusMetres is { } radius
-                ? NearestWithin(assessment, markGeocentric, fix, radius)
-                : (-1, null);
-            if (nearest < 0)
-                unpaired++;
-            else
-            {
-                markRows[pairs.Count] = nearest;
-                pairs.Add(new MarkFixPair(assessment.Marks[nearest], fix, ByProximity, others));
-            }
+            var byId = code >= 0;
+            var row = byId ? code : NearbyCode(code);
+            markRows[pairs.Count] = row;
+            pairs.Add(byId
+                ? new MarkFixPair(assessment.Marks[row], fixes[f], ById)
+                : new MarkFixPair(assessment.Marks[row], fixes[f], ByProximity, ambiguous.GetValueOrDefault(f)));
         }
         if (pairs.Count < markRows.Length)
             Array.Resize(ref markRows, pairs.Count);
         return (pairs, markRows, unpaired);
     }
 
-    /// <summary>The nearest mark within the radius (nearest wins) and the ids of any other marks also within it.</summary>
-    private static (int Nearest, List<string>? Others) NearestWithin(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric, FramedPoint fix, double radiusMetres)
-    {
-        var best = -1;
-        var bestDistance = double.PositiveInfinity;
-        var within = 0;
-        for (var i = 0; i < assessment.Marks.Count; i++)
-        {
-            var mark = assessment.Marks[i];
-            var fixAtMarkHeight = fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
-            var enu = LocalTangentPlane.Difference(markGeocentric[i], mark.Geodetic,
-                GeocentricConversion.ToGeocentric(fixAtMarkHeight, assessment.MarksFrame.Crs.Ellipsoid));
-            var distance = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
-            if (distance > radiusMetres)
-                continue;
-            within++;
-            if (distance < bestDistance)
-            {
-                best = i;
-                bestDistance = distance;
-            }
-        }
-        if (within < 2)
-            return (best, null);
-        // Rare: a second pass names the other marks, so the common case allocates nothing.
-        var others = new List<string>(within - 1);
-        for (var i = 0; i < assessment.Marks.Count; i++)
-        {
-            var mark = assessment.Marks[i];
-            if (i == best)
-                continue;
-            var fixAtMarkHeight = fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
-            var enu = LocalTangentPlane.Difference(markGeocentric[i], mark.Geodetic,
-                GeocentricConversion.ToGeocentric(fixAtMarkHeight, Ellipsoid.Wgs84));
-            if (Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres) <= radiusMetres)
-                others.Add(mark.Id);
-        }
-        return (best, others);
-    }
+    /// <summary>Slot value of a fix that pairs with no mark.</summary>
+    private const int Unpaired = -1;
+
+    /// <summary>Slot value of a fix paired by proximity with mark <paramref name="row"/> (−2 − row; its own inverse).</summary>
+    private static int NearbyCode(int row) => -2 - row;
 }

@@ -73,43 +73,68 @@ public static class BootstrapInterval
         int lower = Math.Min((int)Math.Floor(h), n - 1);
         double fraction = h - lower;
 
-        var random = new SplitMix64(seed);
-        var tally = new int[n];
         // Each resample's estimate is fixed by the two ranks it interpolates between; small samples count resamples per
         // rank pair (at most n² pairs, a few dozen in practice) and sort only the distinct estimates, not all resamples.
         bool countPairs = n <= PairCountingLimit;
         var pairCounts = countPairs ? new int[n * n] : null;
         var estimates = new double[resamples];
-        // Small samples: the draws depend only on (n, resamples, seed), so their per-index counts are computed once per
-        // process and shared (exactly the same draws, in the same order, as drawing them here).
-        var drawn = countPairs ? DrawCounts(n, resamples, seed) : null;
-        for (int b = 0; b < resamples; b++)
-        {
-            (int atLower, int atUpper) = (0, 0);
-            if (drawn is not null)
-            {
-                // Read the counts of the ranks the walk visits straight from the shared draw table.
-                (atLower, atUpper) = OrderStatisticRanks(new DrawnTally(drawn, b * n, rank), n, lower, fraction);
-            }
-            else
-            {
-                Array.Clear(tally);
-                for (int i = 0; i < n; i++)
-                    tally[positionOf[random.NextIndex(n)]]++;
-                (atLower, atUpper) = OrderStatisticRanks(new RankTally(tally), n, lower, fraction);
-            }
-
-            if (countPairs)
-                pairCounts![(atLower * n) + atUpper]++;
-            else
-                estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
-        }
-
         if (countPairs)
+        {
+            // Small samples: the draws depend only on (n, resamples, seed), so their per-index counts are computed once
+            // per process and shared (exactly the same draws, in the same order, as drawing them here); the counts of the
+            // ranks the walk visits are read straight from that table.
+            var drawn = DrawCounts(n, resamples, seed);
+            for (int b = 0; b < resamples; b++)
+            {
+                var (atLower, atUpper) = OrderStatisticRanks(new DrawnTally(drawn, b * n, rank), n, lower, fraction);
+                pairCounts![(atLower * n) + atUpper]++;
+            }
             SortedFromPairCounts(sorted, pairCounts!, lower, fraction, estimates);
+        }
         else
+        {
+            DrawEstimates(sorted, positionOf, lower, fraction, seed, estimates);
             Array.Sort(estimates);
+        }
         return (Percentile.LinearInterpolationOfSorted(estimates, tail), Percentile.LinearInterpolationOfSorted(estimates, 1.0 - tail));
+    }
+
+    /// <summary>Fewest draws (resamples × n) worth spreading over the processors: about 5 ms of drawing (common practice).</summary>
+    private const long ParallelDrawsThreshold = 1L << 20;
+
+    /// <summary>Blocks of resamples per processor, so that a worker slowed by other load does not hold up the rest.</summary>
+    private const int BlocksPerProcessor = 4;
+
+    /// <summary>
+    /// Every resample's estimate, unsorted, into <paramref name="estimates"/>[b]. Resample b takes the generator's outputs
+    /// b·n … b·n + n − 1, so a block of resamples starts its own generator there (<see cref="SplitMix64.After"/>) and draws
+    /// exactly what one generator running through all resamples in order would: the blocks run side by side and the
+    /// estimates, each written by one block, are the same bits whatever the scheduling.
+    /// </summary>
+    private static void DrawEstimates(double[] sorted, int[] positionOf, int lower, double fraction, ulong seed, double[] estimates)
+    {
+        int n = sorted.Length, resamples = estimates.Length;
+        bool worthIt = (long)n * resamples >= ParallelDrawsThreshold;
+        int blocks = worthIt ? Math.Min(resamples, Environment.ProcessorCount * BlocksPerProcessor) : 1;
+        var work = new Action[blocks];
+        for (int k = 0; k < blocks; k++)
+        {
+            int first = (int)((long)resamples * k / blocks), end = (int)((long)resamples * (k + 1) / blocks);
+            work[k] = () =>
+            {
+                var random = SplitMix64.After(seed, (ulong)first * (ulong)n);
+                var tally = new int[n];
+                for (int b = first; b < end; b++)
+                {
+                    Array.Clear(tally);
+                    for (int i = 0; i < n; i++)
+                        tally[positionOf[random.NextIndex(n)]]++;
+                    var (atLower, atUpper) = OrderStatisticRanks(new RankTally(tally), n, lower, fraction);
+                    estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
+                }
+            };
+        }
+        ParallelWork.Invoke(worthIt, work);
     }
 
     /// <summary>

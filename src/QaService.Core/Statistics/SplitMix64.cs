@@ -7,14 +7,24 @@ namespace QaService.Core.Statistics;
 /// </summary>
 internal struct SplitMix64(ulong seed)
 {
+    /// <summary>The generator's increment γ, the golden-ratio constant of Steele, Lea &amp; Flood 2014 (Fig. 2).</summary>
+    private const ulong Gamma = 0x9E3779B97F4A7C15UL;
+
     private ulong _state = seed;
+
+    /// <summary>
+    /// The generator seeded with <paramref name="seed"/> after <paramref name="outputsDrawn"/> calls of <see cref="Next"/>
+    /// (or <see cref="NextIndex"/>, which takes exactly one): the state is a Weyl sequence, seed + k·γ mod 2⁶⁴ (Steele, Lea
+    /// &amp; Flood 2014, §3), so the jump is one multiply and gives exactly the outputs the skipped calls would have led to.
+    /// </summary>
+    public static SplitMix64 After(ulong seed, ulong outputsDrawn) => new(unchecked(seed + (outputsDrawn * Gamma)));
 
     /// <summary>Next 64-bit output; the arithmetic is modulo 2⁶⁴ by design (unchecked under the build's overflow checks).</summary>
     public ulong Next()
     {
         unchecked
         {
-            ulong z = _state += 0x9E3779B97F4A7C15UL;
+            ulong z = _state += Gamma;
             z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9UL;
             z = (z ^ (z >> 27)) * 0x94D049BB133111EBUL;
             return z ^ (z >> 31);

@@ -50,6 +50,35 @@ public sealed class BootstrapTallyTests
         Assert.Equal(Textbook(values, 0.1, 0.95, 200, 3), BootstrapInterval.OfQuantile(values, 0.1, 0.95, 200, 3));
     }
 
+    /// <summary>
+    /// Enough draws (resamples × n above a million) that blocks of resamples are drawn side by side, each from its own
+    /// generator jumped to the block's first draw: the bounds must still be those of one generator run through in order.
+    /// </summary>
+    [Theory]
+    [InlineData(2100, 600, 0.95)]
+    [InlineData(BootstrapInterval.MonteCarloLimit, 150, 0.5)]
+    public void Resamples_drawn_side_by_side_give_the_textbook_bounds(int n, int resamples, double quantile)
+    {
+        var values = Sample(n, 17);
+        foreach (var (level, seed) in new[] { (0.95, 23UL), (0.5, 24UL), (0.8, 25UL) })
+            Assert.Equal(Textbook(values, quantile, level, resamples, seed), BootstrapInterval.OfQuantile(values, quantile, level, resamples, seed));
+    }
+
+    /// <summary>The jump lands where the calls it skips would have (the generator's definition, Steele, Lea &amp; Flood 2014).</summary>
+    [Theory]
+    [InlineData(0UL, 0UL)]
+    [InlineData(20260526UL, 1UL)]
+    [InlineData(ulong.MaxValue, 12_345UL)]
+    public void Jumping_the_generator_equals_drawing_through(ulong seed, ulong skipped)
+    {
+        var walked = new SplitMix64(seed);
+        for (ulong k = 0; k < skipped; k++)
+            walked.Next();
+        var jumped = SplitMix64.After(seed, skipped);
+        for (int k = 0; k < 5; k++)
+            Assert.Equal(walked.Next(), jumped.Next());
+    }
+
     [Fact]
     public void Large_sample_limit_agrees_with_resampling()
     {
