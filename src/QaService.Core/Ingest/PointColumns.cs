@@ -25,39 +25,48 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     /// <summary>Row of point <paramref name="index"/> in its file (line, or GeoJSON feature index).</summary>
     public long RowOf(int index) => rows[index];
 
-    public void Add(long row, PointRecord point)
+    /// <summary>Number fields in column order (the order of the values a reader adds).</summary>
+    public static IReadOnlyList<string> NumberFieldNames { get; } =
+    [
+        ContractFields.Lat, ContractFields.Lon, ContractFields.E, ContractFields.N, ContractFields.X,
+        ContractFields.Y, ContractFields.Z, ContractFields.H, ContractFields.SigmaH, ContractFields.SigmaV,
+    ];
+
+    public void Add(long row, PointRecord point) =>
+        Append(row, point.Id, point.Mark is null ? null : Shared(point.Mark),
+            [Given(point.Lat), Given(point.Lon), Given(point.E), Given(point.N), Given(point.X),
+             Given(point.Y), Given(point.Z), Given(point.H), Given(point.SigmaH), Given(point.SigmaV)],
+            point.Time?.UtcTicks);
+
+    /// <summary>A point read in place (CSV): empty text means not given; the mark is kept as one shared string per distinct id.</summary>
+    /// <param name="numbers">The <see cref="NumberFieldNames"/> fields in order, NaN where not given (readers accept finite numbers only).</param>
+    public void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
+        Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks);
+
+    private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks)
     {
         var index = rows.Count;
         rows.Add(row);
-        ids.Add(point.Id);
-        marks.Add(point.Mark is null ? null : Shared(point.Mark));
-        AddNumber(0, index, point.Lat);
-        AddNumber(1, index, point.Lon);
-        AddNumber(2, index, point.E);
-        AddNumber(3, index, point.N);
-        AddNumber(4, index, point.X);
-        AddNumber(5, index, point.Y);
-        AddNumber(6, index, point.Z);
-        AddNumber(7, index, point.H);
-        AddNumber(8, index, point.SigmaH);
-        AddNumber(9, index, point.SigmaV);
-        if (point.Time is { } time)
+        ids.Add(id);
+        marks.Add(sharedMark);
+        for (var field = 0; field < NumberFields; field++)
+        {
+            var value = numbers[field];
+            if (!double.IsNaN(value))
+                (this.numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(value);
+            else
+                this.numbers[field]?.Add(double.NaN);
+        }
+        if (utcTicks is { } ticks)
         {
             timeTicks ??= ChunkedColumn<long>.Filled(index, NoTime);
-            timeTicks.Add(time.UtcTicks);
+            timeTicks.Add(ticks);
         }
         else
             timeTicks?.Add(NoTime);
     }
 
-    private void AddNumber(int field, int index, double? value)
-    {
-        if (value is { } v)
-            (numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(v);
-        else
-            numbers[field]?.Add(double.NaN);
-    }
-
+    private static double Given(double? value) => value ?? double.NaN;
 
     /// <summary>Multiplies every length (not lat/lon) of every point by <paramref name="factor"/> (a file length unit to the CRS unit).</summary>
     public void ScaleLengths(double factor)
@@ -110,5 +119,16 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
             return existing;
         markNames[mark] = mark;
         return mark;
+    }
+
+    /// <summary>As <see cref="Shared(string)"/>, looked up by the text itself so a repeated id costs no string.</summary>
+    private string Shared(ReadOnlySpan<char> mark)
+    {
+        var byText = markNames.GetAlternateLookup<ReadOnlySpan<char>>();
+        if (byText.TryGetValue(mark, out var existing))
+            return existing;
+        var name = mark.ToString();
+        markNames[name] = name;
+        return name;
     }
 }
