@@ -124,11 +124,13 @@ public static class RequestValidator
         if (set.Points is null)
             return result;
         var useHeight = frame.Heights != HeightReference.None;
+        var columns = set.Points as IPointValueList;
         for (var i = 0; i < set.Points.Count; i++)
         {
             var pointPointer = new PointPointer(pointer, i);
-            var point = set.Points[i];
-            if (point is null)
+            PointValues point;
+            var present = columns is not null ? columns.TryGetValues(i, out point) : TryCopy(set.Points[i], out point);
+            if (!present)
             {
                 errors.Add(new(pointPointer, "a point must be an object, not null"));
                 continue;
@@ -150,7 +152,13 @@ public static class RequestValidator
         return result;
     }
 
-    private static string? ReadId(PointRecord point, PointPointer pointer, bool isMark, int index, List<InputError> errors)
+    private static bool TryCopy(PointRecord? record, out PointValues point)
+    {
+        point = record is null ? default : PointValues.Of(record);
+        return record is not null;
+    }
+
+    private static string? ReadId(in PointValues point, PointPointer pointer, bool isMark, int index, List<InputError> errors)
     {
         if (string.IsNullOrWhiteSpace(point.Id))
         {

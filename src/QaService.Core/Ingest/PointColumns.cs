@@ -7,7 +7,7 @@ namespace QaService.Core.Ingest;
 /// cost tens of megabytes rather than a million objects. Presents itself as the request's point list;
 /// each <see cref="PointRecord"/> is made when asked for. Also keeps each point's row in its file.
 /// </summary>
-public sealed class PointColumns : IReadOnlyList<PointRecord?>
+public sealed class PointColumns : IPointValueList
 {
     private const long NoTime = long.MinValue;
 
@@ -85,12 +85,22 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     {
         get
         {
-            double? At(int field) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;
-            var ticks = timeTicks?[index] ?? NoTime;
-            return new PointRecord(ids[index], marks[index], At(0), At(1), At(2), At(3), At(4), At(5), At(6), At(7), At(8), At(9),
-                ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
+            TryGetValues(index, out var p);
+            return new PointRecord(p.Id, p.Mark, p.Lat, p.Lon, p.E, p.N, p.X, p.Y, p.Z, p.H, p.SigmaH, p.SigmaV, p.Time);
         }
     }
+
+    /// <summary>Point <paramref name="index"/> read from the columns (never null here).</summary>
+    public bool TryGetValues(int index, out PointValues point)
+    {
+        var ticks = timeTicks?[index] ?? NoTime;
+        point = new PointValues(ids[index], marks[index], At(0, index), At(1, index), At(2, index), At(3, index), At(4, index),
+            At(5, index), At(6, index), At(7, index), At(8, index), At(9, index),
+            ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
+        return true;
+    }
+
+    private double? At(int field, int index) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;
 
     /// <summary>A copy without the points at <paramref name="drop"/> (lenient reading).</summary>
     public PointColumns Without(IReadOnlySet<int> drop)
