@@ -66,9 +66,7 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
             }
             else
             {
-                count = line.Count(separator) + 1;
-                if (count == headers.Count)
-                    line.Split(fields, separator);
+                count = Cut(line, separator, fields);
                 record = line;
             }
             if (count != headers.Count)
@@ -79,6 +77,27 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
             comma ??= row.LooksLikeDecimalComma(record, fields);
             row.Read(lineNumber, record, fields, comma.Value, sink);
         }
+    }
+
+    /// <summary>
+    /// The field count of a record without quotes, cutting it at each delimiter into <paramref name="fields"/> while
+    /// they fit (the ranges matter only when the count is the header's).
+    /// </summary>
+    private static int Cut(ReadOnlySpan<char> line, char separator, Range[] fields)
+    {
+        var count = 0;
+        var start = 0;
+        int at;
+        while ((at = line[start..].IndexOf(separator)) >= 0)
+        {
+            if (count == fields.Length)
+                return count + 1 + line[start..].Count(separator);
+            fields[count++] = new Range(start, start + at);
+            start += at + 1;
+        }
+        if (count < fields.Length)
+            fields[count] = new Range(start, line.Length);
+        return count + 1;
     }
 
     /// <summary>The fields of a quoted record laid end to end, with their ranges.</summary>

@@ -50,7 +50,7 @@ internal static class ExactDecimal
             var digit = unchecked((uint)(c - '0'));
             if (digit > 9 || ++digits > MaximumDigits)
                 return false;
-            mantissa = mantissa * 10 + digit;
+            mantissa = unchecked(mantissa * 10 + digit); // at most 19 digits: cannot overflow
             if (point)
                 fractionDigits++;
         }

@@ -14,8 +14,8 @@ public sealed class LineSource(TextReader reader) : IDisposable
     /// <summary>Characters held at once: room for the longest line allowed, its terminator and the next read.</summary>
     private const int BlockCharacters = 2 * ReadLimits.MaximumLineCharacters + 2;
 
-    /// <summary>The characters that stop a line from being read: an undecodable byte (U+FFFD) or NUL.</summary>
-    private static readonly SearchValues<char> Refused = SearchValues.Create([TextDecoding.Replacement, '\0']);
+    /// <summary>Line terminators and the characters that stop a line from being read (an undecodable byte, U+FFFD, or NUL), found in one pass.</summary>
+    private static readonly SearchValues<char> Stops = SearchValues.Create(['\r', '\n', TextDecoding.Replacement, '\0']);
 
     private char[]? block = ArrayPool<char>.Shared.Rent(BlockCharacters);
     private int start, end;
@@ -39,9 +39,11 @@ public sealed class LineSource(TextReader reader) : IDisposable
         while (true)
         {
             var pending = text.AsSpan(start, end - start);
-            var stop = pending[searched..].IndexOfAny('\r', '\n');
+            var stop = pending[searched..].IndexOfAny(Stops);
             if (stop >= 0)
                 stop += searched;
+            if (stop >= 0 && pending[stop] is TextDecoding.Replacement or '\0')
+                throw Refusal(pending[stop], stop, number);
             // A '\r' as the last character read may be the first half of "\r\n": read on before deciding.
             var decided = stop >= 0 && !(pending[stop] == '\r' && stop == pending.Length - 1 && !endOfText);
             var length = stop >= 0 ? stop : pending.Length;
@@ -52,8 +54,9 @@ public sealed class LineSource(TextReader reader) : IDisposable
                     line = default;
                     return false;
                 }
+                if (length > ReadLimits.MaximumLineCharacters)
+                    throw TooLong(number);
                 line = pending[..length];
-                Check(line, number);
                 var terminator = stop < 0 ? 0 : pending[stop] == '\r' && stop + 1 < pending.Length && pending[stop + 1] == '\n' ? 2 : 1;
                 start += length + terminator;
                 LineNumber = number;
@@ -64,21 +67,17 @@ public sealed class LineSource(TextReader reader) : IDisposable
         }
     }
 
-    /// <summary>The refusals of the character-at-a-time reader, in its order: the first refused character, else the length.</summary>
-    private static void Check(ReadOnlySpan<char> line, long number)
-    {
-        // A character at index MaximumLineCharacters is tested for U+FFFD and NUL before the line is found too long.
-        var inspected = line[..Math.Min(line.Length, ReadLimits.MaximumLineCharacters + 1)];
-        var refused = inspected.IndexOfAny(Refused);
-        if (refused >= 0)
-        {
-            throw inspected[refused] == TextDecoding.Replacement
-                ? new FieldFileException(number, TextDecoding.NotText(number))
-                : new FieldFileException(number, InvariantText.Format($"line {number} holds a NUL character: this is binary content, not a text field file"));
-        }
-        if (line.Length > ReadLimits.MaximumLineCharacters)
-            throw new FieldFileException(number, InvariantText.Format($"line {number} is longer than {ReadLimits.MaximumLineCharacters} characters: the file is not one record per line, or is damaged"));
-    }
+    /// <summary>
+    /// The refusal of a line whose first refused character (U+FFFD, NUL) is at <paramref name="index"/>: characters are
+    /// judged one at a time, so one past the length limit makes the line too long before it is looked at.
+    /// </summary>
+    private static FieldFileException Refusal(char refused, int index, long number) =>
+        index > ReadLimits.MaximumLineCharacters ? TooLong(number)
+        : refused == TextDecoding.Replacement ? new FieldFileException(number, TextDecoding.NotText(number))
+        : new FieldFileException(number, InvariantText.Format($"line {number} holds a NUL character: this is binary content, not a text field file"));
+
+    private static FieldFileException TooLong(long number) =>
+        new(number, InvariantText.Format($"line {number} is longer than {ReadLimits.MaximumLineCharacters} characters: the file is not one record per line, or is damaged"));
 
     /// <summary>Moves the unread characters to the front of the block and decodes more after them.</summary>
     private void Fill(char[] text, long number)
