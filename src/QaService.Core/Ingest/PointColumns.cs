@@ -15,6 +15,7 @@ public sealed class PointColumns : IPointValueList
     private readonly ChunkedColumn<string?> ids = new();
     private readonly ChunkedColumn<string?> marks = new();
     private readonly Dictionary<string, string> markNames = new(StringComparer.Ordinal);
+    private string? lastMark;
     // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
     private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
     private ChunkedColumn<long>? timeTicks;
@@ -131,14 +132,21 @@ public sealed class PointColumns : IPointValueList
         return mark;
     }
 
-    /// <summary>As <see cref="Shared(string)"/>, looked up by the text itself so a repeated id costs no string.</summary>
+    /// <summary>
+    /// As <see cref="Shared(string)"/>, looked up by the text itself so a repeated id costs no string; a run of fixes
+    /// on one mark (repeat occupations are often logged together) is recognised without a lookup.
+    /// </summary>
     private string Shared(ReadOnlySpan<char> mark)
     {
+        if (lastMark is { } last && mark.SequenceEqual(last))
+            return last;
         var byText = markNames.GetAlternateLookup<ReadOnlySpan<char>>();
-        if (byText.TryGetValue(mark, out var existing))
-            return existing;
-        var name = mark.ToString();
-        markNames[name] = name;
+        if (!byText.TryGetValue(mark, out var name))
+        {
+            name = mark.ToString();
+            markNames[name] = name;
+        }
+        lastMark = name;
         return name;
     }
 }
