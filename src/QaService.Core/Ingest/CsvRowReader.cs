@@ -17,7 +17,10 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
     private readonly int idColumn = ColumnOf(index, ContractFields.Id);
     private readonly int markColumn = ColumnOf(index, ContractFields.Mark);
     private readonly int timeColumn = ColumnOf(index, ContractFields.Time);
-    private readonly int[] numberColumns = PointColumns.NumberFieldNames.Select(field => ColumnOf(index, field)).ToArray();
+    /// <summary>The number fields the file has (position in <see cref="PointColumns.NumberFieldNames"/>) and their columns, in that order.</summary>
+    private readonly (int Field, int Column)[] numbersInFile = Enumerable.Range(0, PointColumns.NumberFieldNames.Count)
+        .Select(field => (field, ColumnOf(index, PointColumns.NumberFieldNames[field])))
+        .Where(number => number.Item2 != NotInFile).ToArray();
 
     /// <summary>Columns that may hold a number (every mapped one but id, mark and time), probed for a decimal comma.</summary>
     private readonly int[] probedColumns = index
@@ -47,11 +50,11 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
             else
                 problem = new FieldProblem(ContractFields.Time, Refusal(ContractFields.Time, timeText, "an ISO 8601 time"));
         }
-        Span<double> numbers = stackalloc double[numberColumns.Length];
-        for (var field = 0; field < numberColumns.Length; field++)
+        Span<double> numbers = stackalloc double[PointColumns.NumberFields];
+        numbers.Fill(double.NaN);
+        foreach (var (field, column) in numbersInFile)
         {
-            numbers[field] = double.NaN;
-            if (Text(record, fields, numberColumns[field]) is not { IsEmpty: false } text)
+            if (Text(record, fields, column) is not { IsEmpty: false } text)
                 continue;
             var angle = field < AngleFields;
             var ok = angle ? FieldText.TryAngle(text, comma, out var value) : FieldText.TryNumber(text, comma, out value);

@@ -19,7 +19,7 @@ public sealed class PointColumns : IPointValueList
     // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
     private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
     private ChunkedColumn<long>? timeTicks;
-    private const int NumberFields = 10;
+    internal const int NumberFields = 10;
 
     public int Count => rows.Count;
 
