@@ -124,15 +124,9 @@ public static class RequestValidator
         foreach (var mark in marks.Where(mark => !markIds.Add(mark.Id)))
             errors.Add(new(Format($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
 
-        // An upload's fixes share one string per mark id (PointColumns), so an id found once is then known by reference.
-        var found = new HashSet<string>(ReferenceEqualityComparer.Instance);
         foreach (var fix in fixes)
         {
-            if (fix.MarkId is not { Length: > 0 } markId || found.Contains(markId))
-                continue;
-            if (markIds.Contains(markId))
-                found.Add(markId);
-            else
+            if (fix.MarkId is { Length: > 0 } markId && !markIds.Contains(markId))
                 errors.Add(new(Format($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{markId}\""));
         }
     }
