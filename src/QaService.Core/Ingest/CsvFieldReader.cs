@@ -25,7 +25,7 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
     }
 
     /// <summary>Reads every row into <paramref name="sink"/>; a <see cref="FieldFileException"/> stops the file.</summary>
-    public void ReadInto(Stream stream, IFieldRowSink sink, CancellationToken cancellationToken)
+    internal void ReadInto(Stream stream, IFieldRowSink sink, CancellationToken cancellationToken)
     {
         using var text = TextDecoding.Open(stream);
         using var lines = new LineSource(text);

@@ -17,10 +17,12 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
     private readonly int idColumn = ColumnOf(index, ContractFields.Id);
     private readonly int markColumn = ColumnOf(index, ContractFields.Mark);
     private readonly int timeColumn = ColumnOf(index, ContractFields.Time);
+
     /// <summary>The number fields the file has (position in <see cref="PointColumns.NumberFieldNames"/>) and their columns, in that order.</summary>
     private readonly (int Field, int Column)[] numbersInFile = Enumerable.Range(0, PointColumns.NumberFieldNames.Count)
         .Select(field => (field, ColumnOf(index, PointColumns.NumberFieldNames[field])))
-        .Where(number => number.Item2 != NotInFile).ToArray();
+        .Where(number => number.Item2 != NotInFile)
+        .ToArray();
 
     /// <summary>Columns that may hold a number (every mapped one but id, mark and time), probed for a decimal comma.</summary>
     private readonly int[] probedColumns = index

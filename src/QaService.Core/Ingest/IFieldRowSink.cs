@@ -6,7 +6,7 @@ namespace QaService.Core.Ingest;
 /// Where a reader that works in place (CSV) puts each row as it is read: a point's fields straight from the
 /// line, or the row's problem. Spares a large upload one record object per row.
 /// </summary>
-public interface IFieldRowSink
+internal interface IFieldRowSink
 {
     /// <param name="row">Line number (1-based).</param>
     /// <param name="id">The id text, trimmed; empty when not given.</param>

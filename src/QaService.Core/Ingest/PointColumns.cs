@@ -27,7 +27,7 @@ public sealed class PointColumns : IPointValueList
     public long RowOf(int index) => rows[index];
 
     /// <summary>Number fields in column order (the order of the values a reader adds).</summary>
-    public static IReadOnlyList<string> NumberFieldNames { get; } =
+    internal static IReadOnlyList<string> NumberFieldNames { get; } =
     [
         ContractFields.Lat, ContractFields.Lon, ContractFields.E, ContractFields.N, ContractFields.X,
         ContractFields.Y, ContractFields.Z, ContractFields.H, ContractFields.SigmaH, ContractFields.SigmaV,
@@ -41,7 +41,7 @@ public sealed class PointColumns : IPointValueList
 
     /// <summary>A point read in place (CSV): empty text means not given; the mark is kept as one shared string per distinct id.</summary>
     /// <param name="numbers">The <see cref="NumberFieldNames"/> fields in order, NaN where not given (readers accept finite numbers only).</param>
-    public void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
+    internal void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
         Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks);
 
     private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks)
