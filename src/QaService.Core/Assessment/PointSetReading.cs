@@ -17,7 +17,8 @@ internal static class PointSetReading
     /// </summary>
     private const int SlicedFromPoints = 65_536;
 
-    public static List<FramedPoint> Read(PointSet set, PointSetFrame frame, string pointer, bool isMark, List<InputError> errors)
+    /// <param name="markCheck">For fixes: the mark ids they may name, and where a fix naming another is reported. Null for marks.</param>
+    public static List<FramedPoint> Read(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors, MarkCheck? markCheck = null)
     {
         var count = set.Points?.Count ?? 0;
         if (set.Points is null)
@@ -26,32 +27,36 @@ internal static class PointSetReading
         if (slices <= 1)
         {
             var result = new List<FramedPoint>(count);
-            ReadSlice(set.Points, frame, pointer, isMark, 0, count, result, errors);
+            ReadSlice(set.Points, frame, pointer, markCheck, 0, count, result, errors, markCheck?.Unknown);
             return result;
         }
         var points = new List<FramedPoint>[slices];
         var problems = new List<InputError>[slices];
+        var unknownMarks = new List<InputError>[slices];
         Parallel.For(0, slices, slice =>
         {
             var (from, to) = ((int)((long)count * slice / slices), (int)((long)count * (slice + 1) / slices));
             // The first slice's list takes the whole set, so joining adds the others to it rather than copying all into a third list.
             points[slice] = new List<FramedPoint>(slice == 0 ? count : to - from);
             problems[slice] = [];
-            ReadSlice(set.Points, frame, pointer, isMark, from, to, points[slice], problems[slice]);
+            unknownMarks[slice] = [];
+            ReadSlice(set.Points, frame, pointer, markCheck, from, to, points[slice], problems[slice], unknownMarks[slice]);
         });
         var joined = points[0];
-        errors.AddRange(problems[0]);
-        for (var slice = 1; slice < slices; slice++)
+        for (var slice = 0; slice < slices; slice++)
         {
-            joined.AddRange(points[slice]);
+            if (slice > 0)
+                joined.AddRange(points[slice]);
             errors.AddRange(problems[slice]);
+            markCheck?.Unknown.AddRange(unknownMarks[slice]);
         }
         return joined;
     }
 
-    private static void ReadSlice(IReadOnlyList<PointRecord?> points, PointSetFrame frame, string pointer, bool isMark, int from, int to,
-        List<FramedPoint> result, List<InputError> errors)
+    private static void ReadSlice(IReadOnlyList<PointRecord?> points, PointSetFrame frame, string pointer, MarkCheck? markCheck, int from, int to,
+        List<FramedPoint> result, List<InputError> errors, List<InputError>? unknownMarks)
     {
+        var isMark = markCheck is null;
         var useHeight = frame.Heights != HeightReference.None;
         var columns = points as IPointValueList;
         for (var i = from; i < to; i++)
@@ -73,10 +78,13 @@ internal static class PointSetReading
             if (geodetic is null || id is null)
                 continue;
             var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
-            result.Add(new FramedPoint(i, id, point.Mark?.Trim(), geodetic.Value, hasHeight,
+            var markId = point.Mark?.Trim();
+            result.Add(new FramedPoint(i, id, markId, geodetic.Value, hasHeight,
                 point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
                 point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
                 point.Time));
+            if (markId is { Length: > 0 } && markCheck is not null && !markCheck.Known.Contains(markId))
+                unknownMarks!.Add(new(Format($"{pointer}/points/{i}/mark"), $"no mark has the id \"{markId}\""));
         }
     }
 
@@ -109,3 +117,6 @@ internal static class PointSetReading
             errors.Add(new($"{point}/{field}", Format($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
     }
 }
+
+/// <summary>The mark ids the fixes may name, and the problems of fixes that name another (in fix order).</summary>
+internal sealed record MarkCheck(IReadOnlySet<string> Known, List<InputError> Unknown);

@@ -50,9 +50,12 @@ public static class RequestValidator
         var occupations = OccupationModes.Read(request.Pairing?.Occupations, optionErrors);
         var requestedExclusions = request.Exclusions;
 
-        var marks = marksFrame is null ? [] : PointSetReading.Read(request.Marks!, marksFrame, "/marks", isMark: true, errors);
-        var fixes = fixesFrame is null ? [] : PointSetReading.Read(request.Fixes!, fixesFrame, "/fixes", isMark: false, errors);
-        CheckIds(marks, fixes, errors);
+        var marks = marksFrame is null ? [] : PointSetReading.Read(request.Marks!, marksFrame, "/marks", errors);
+        // Each fix's mark is checked as the fix is read; those problems are listed after the marks' duplicate ids.
+        var markCheck = new MarkCheck(marks.Select(mark => mark.Id).ToHashSet(StringComparer.Ordinal), []);
+        var fixes = fixesFrame is null ? [] : PointSetReading.Read(request.Fixes!, fixesFrame, "/fixes", errors, markCheck);
+        ReportDuplicateMarkIds(marks, errors);
+        errors.AddRange(markCheck.Unknown);
         errors.AddRange(optionErrors);
         var exclusions = ReadExclusions(requestedExclusions, fixes, errors);
 
@@ -118,17 +121,11 @@ public static class RequestValidator
     private static string Describe(PointSetFrame frame) =>
         frame.Heights == HeightReference.Orthometric ? $"orthometric ({frame.Geoid})" : "ellipsoidal";
 
-    private static void CheckIds(List<FramedPoint> marks, List<FramedPoint> fixes, List<InputError> errors)
+    private static void ReportDuplicateMarkIds(List<FramedPoint> marks, List<InputError> errors)
     {
         var markIds = new HashSet<string>(StringComparer.Ordinal);
         foreach (var mark in marks.Where(mark => !markIds.Add(mark.Id)))
             errors.Add(new(Format($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
-
-        foreach (var fix in fixes)
-        {
-            if (fix.MarkId is { Length: > 0 } markId && !markIds.Contains(markId))
-                errors.Add(new(Format($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{markId}\""));
-        }
     }
 
     private static RequiredAccuracy? ReadSpec(AccuracySpec? spec, List<InputError> errors)
