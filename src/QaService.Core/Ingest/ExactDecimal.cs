@@ -37,27 +37,35 @@ internal static class ExactDecimal
             i++;
         }
         ulong mantissa = 0;
-        int digits = 0, fractionDigits = 0;
-        var point = false;
-        for (; i < text.Length; i++)
+        var integerDigits = ReadDigits(text, ref i, ref mantissa);
+        var fractionDigits = 0;
+        if (i < text.Length && text[i] == '.')
         {
-            var c = text[i];
-            if (c == '.' && !point)
-            {
-                point = true;
-                continue;
-            }
-            var digit = unchecked((uint)(c - '0'));
-            if (digit > 9 || ++digits > MaximumDigits)
-                return false;
-            mantissa = unchecked(mantissa * 10 + digit); // at most 19 digits: cannot overflow
-            if (point)
-                fractionDigits++;
+            i++;
+            fractionDigits = ReadDigits(text, ref i, ref mantissa);
         }
-        if (digits == 0 || mantissa > LargestExactInteger)
+        var digits = integerDigits + fractionDigits;
+        if (i < text.Length || digits == 0 || digits > MaximumDigits || mantissa > LargestExactInteger)
             return false;
         var magnitude = mantissa / ExactPowersOfTen[fractionDigits];
         value = negative ? -magnitude : magnitude;
         return true;
+    }
+
+    /// <summary>
+    /// Appends the run of digits at <paramref name="i"/> to <paramref name="mantissa"/> and returns its length. The
+    /// mantissa wraps only past 19 digits, and the caller refuses such numbers.
+    /// </summary>
+    private static int ReadDigits(ReadOnlySpan<char> text, ref int i, ref ulong mantissa)
+    {
+        var start = i;
+        for (; i < text.Length; i++)
+        {
+            var digit = unchecked((uint)(text[i] - '0'));
+            if (digit > 9)
+                break;
+            mantissa = unchecked(mantissa * 10 + digit);
+        }
+        return i - start;
     }
 }
