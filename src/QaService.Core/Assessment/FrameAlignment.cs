@@ -31,6 +31,21 @@ public static class FrameAlignment
 
         var alignedMarks = markGeoid is null ? marks : marks.Select(m => ToEllipsoidal(m, markGeoid)).ToList();
 
+        // No step and no geoid leave every fix as it is: the batch round trip would copy each coordinate back unchanged.
+        var alignedFixes = operation.Steps.Count == 0 && fixGeoid is null ? fixes : Transform(operation, fixesFrame, fixes, fixGeoid);
+
+        var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };
+        if (markGeoid is not null)
+            text.Add($"marks: orthometric H to ellipsoidal h = H + N with the {markGeoid.Grid.Name} geoid (bilinear; EGM96 accuracy about {markGeoid.AccuracyMetres:0.#} m absolute, it cancels where both sides use it)");
+        if (marksFrame.EpochDecimalYear is { } me && fixesFrame.EpochDecimalYear is { } fe && me != fe && marksFrame.Crs.Datum.FrameReferenceEpochYear is not null
+            && marksFrame.Crs.Datum.Code == fixesFrame.Crs.Datum.Code)
+            text.Add(InvariantText.Format($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
+        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)), null);
+    }
+
+    /// <summary>Runs the fixes through the operation as one batch; a fix without height keeps the geoid-free height it had.</summary>
+    private static IReadOnlyList<FramedPoint> Transform(CoordinateOperation operation, PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes, GeoidModel? fixGeoid)
+    {
         var buffer = new CoordinateBuffer(fixes.Count, withEpochs: true);
         for (var i = 0; i < fixes.Count; i++)
         {
@@ -49,14 +64,7 @@ public static class FrameAlignment
             var height = alignedFixes[i].HasHeight || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
             alignedFixes[i].Geodetic = new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height);
         }
-
-        var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };
-        if (markGeoid is not null)
-            text.Add($"marks: orthometric H to ellipsoidal h = H + N with the {markGeoid.Grid.Name} geoid (bilinear; EGM96 accuracy about {markGeoid.AccuracyMetres:0.#} m absolute, it cancels where both sides use it)");
-        if (marksFrame.EpochDecimalYear is { } me && fixesFrame.EpochDecimalYear is { } fe && me != fe && marksFrame.Crs.Datum.FrameReferenceEpochYear is not null
-            && marksFrame.Crs.Datum.Code == fixesFrame.Crs.Datum.Code)
-            text.Add(InvariantText.Format($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
-        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)), null);
+        return alignedFixes;
     }
 
     /// <summary>The geographic form of a CRS, after <see cref="PointConversion"/> has already undone projection and unit.</summary>

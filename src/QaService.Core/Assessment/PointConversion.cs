@@ -35,7 +35,7 @@ internal static class PointConversion
     private static readonly string[] ProjectedFields = ["e", "n"];
     private static readonly string[] GeocentricFields = ["x", "y", "z"];
 
-    public static GeodeticCoordinate? ToGeodetic(CoordinateReferenceSystem crs, PointRecord point, PointPointer pointer, bool useHeight, List<InputError> errors)
+    public static GeodeticCoordinate? ToGeodetic(CoordinateReferenceSystem crs, in PointValues point, PointPointer pointer, bool useHeight, List<InputError> errors)
     {
         var before = errors.Count;
         RejectForeignFields(crs.Kind, point, pointer, errors);
@@ -50,7 +50,7 @@ internal static class PointConversion
         return errors.Count == before ? result : null;
     }
 
-    private static double ReadHeight(CoordinateReferenceSystem crs, PointRecord point, PointPointer pointer, bool useHeight, List<InputError> errors)
+    private static double ReadHeight(CoordinateReferenceSystem crs, in PointValues point, PointPointer pointer, bool useHeight, List<InputError> errors)
     {
         if (!useHeight || point.H is not { } h)
             return 0.0;
@@ -60,7 +60,7 @@ internal static class PointConversion
         return metres;
     }
 
-    private static GeodeticCoordinate? FromGeographic(PointRecord p, PointPointer pointer, double heightMetres, List<InputError> errors)
+    private static GeodeticCoordinate? FromGeographic(in PointValues p, PointPointer pointer, double heightMetres, List<InputError> errors)
     {
         if (!Require(p.Lat, "lat", pointer, errors) | !Require(p.Lon, "lon", pointer, errors))
             return null;
@@ -73,7 +73,7 @@ internal static class PointConversion
         return new GeodeticCoordinate(lat, lon, heightMetres);
     }
 
-    private static GeodeticCoordinate? FromProjected(CoordinateReferenceSystem crs, PointRecord p, PointPointer pointer, double heightMetres, List<InputError> errors)
+    private static GeodeticCoordinate? FromProjected(CoordinateReferenceSystem crs, in PointValues p, PointPointer pointer, double heightMetres, List<InputError> errors)
     {
         if (!Require(p.E, "e", pointer, errors) | !Require(p.N, "n", pointer, errors))
             return null;
@@ -126,7 +126,7 @@ internal static class PointConversion
         return new GeodeticCoordinate(lat, lon, heightMetres);
     }
 
-    private static GeodeticCoordinate? FromGeocentric(CoordinateReferenceSystem crs, PointRecord p, PointPointer pointer, List<InputError> errors)
+    private static GeodeticCoordinate? FromGeocentric(CoordinateReferenceSystem crs, in PointValues p, PointPointer pointer, List<InputError> errors)
     {
         if (!Require(p.X, "x", pointer, errors) | !Require(p.Y, "y", pointer, errors) | !Require(p.Z, "z", pointer, errors))
             return null;
@@ -145,7 +145,7 @@ internal static class PointConversion
         return geodetic;
     }
 
-    private static void RejectForeignFields(CrsKind kind, PointRecord p, PointPointer pointer, List<InputError> errors)
+    private static void RejectForeignFields(CrsKind kind, in PointValues p, PointPointer pointer, List<InputError> errors)
     {
         // Checked without allocating: this runs for every point of an upload and almost always finds nothing.
         var foreign = kind switch
@@ -160,7 +160,7 @@ internal static class PointConversion
             errors.Add(new($"{pointer}/h", "a geocentric CRS takes x, y, z only; the height is implied by them"));
     }
 
-    private static void ReportForeignFields(CrsKind kind, PointRecord p, PointPointer pointer, List<InputError> errors)
+    private static void ReportForeignFields(CrsKind kind, in PointValues p, PointPointer pointer, List<InputError> errors)
     {
         var given = new List<string>(3);
         if (p.Lat is not null) given.Add("lat");

@@ -50,9 +50,12 @@ public static class RequestValidator
         var occupations = OccupationModes.Read(request.Pairing?.Occupations, optionErrors);
         var requestedExclusions = request.Exclusions;
 
-        var marks = marksFrame is null ? [] : ReadPoints(request.Marks!, marksFrame, "/marks", isMark: true, errors);
-        var fixes = fixesFrame is null ? [] : ReadPoints(request.Fixes!, fixesFrame, "/fixes", isMark: false, errors);
-        CheckIds(marks, fixes, errors);
+        var marks = marksFrame is null ? [] : PointSetReading.Read(request.Marks!, marksFrame, "/marks", errors);
+        // Each fix's mark is checked as the fix is read; those problems are listed after the marks' duplicate ids.
+        var markCheck = new MarkCheck(marks.Select(mark => mark.Id).ToHashSet(StringComparer.Ordinal), []);
+        var fixes = fixesFrame is null ? [] : PointSetReading.Read(request.Fixes!, fixesFrame, "/fixes", errors, markCheck);
+        ReportDuplicateMarkIds(marks, errors);
+        errors.AddRange(markCheck.Unknown);
         errors.AddRange(optionErrors);
         var exclusions = ReadExclusions(requestedExclusions, fixes, errors);
 
@@ -118,69 +121,11 @@ public static class RequestValidator
     private static string Describe(PointSetFrame frame) =>
         frame.Heights == HeightReference.Orthometric ? $"orthometric ({frame.Geoid})" : "ellipsoidal";
 
-    private static List<FramedPoint> ReadPoints(PointSet set, PointSetFrame frame, string pointer, bool isMark, List<InputError> errors)
-    {
-        var result = new List<FramedPoint>(set.Points?.Count ?? 0);
-        if (set.Points is null)
-            return result;
-        var useHeight = frame.Heights != HeightReference.None;
-        for (var i = 0; i < set.Points.Count; i++)
-        {
-            var pointPointer = new PointPointer(pointer, i);
-            var point = set.Points[i];
-            if (point is null)
-            {
-                errors.Add(new(pointPointer, "a point must be an object, not null"));
-                continue;
-            }
-            var id = ReadId(point, pointPointer, isMark, i, errors);
-            if (!isMark && point.Mark is { } mark && string.IsNullOrWhiteSpace(mark))
-                errors.Add(new($"{pointPointer}/mark", "mark must name a mark id, or be left out"));
-            CheckSigma(point.SigmaH, pointPointer, "sigmaH", errors);
-            CheckSigma(point.SigmaV, pointPointer, "sigmaV", errors);
-            var geodetic = PointConversion.ToGeodetic(frame.Crs, point, pointPointer, useHeight, errors);
-            if (geodetic is null || id is null)
-                continue;
-            var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
-            result.Add(new FramedPoint(i, id, point.Mark?.Trim(), geodetic.Value, hasHeight,
-                point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
-                point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
-                point.Time));
-        }
-        return result;
-    }
-
-    private static string? ReadId(PointRecord point, PointPointer pointer, bool isMark, int index, List<InputError> errors)
-    {
-        if (string.IsNullOrWhiteSpace(point.Id))
-        {
-            if (!isMark)
-                return string.Create(CultureInfo.InvariantCulture, $"#{index + 1}");
-            errors.Add(new($"{pointer}/id", "every mark needs an id (fixes name it in \"mark\")"));
-            return null;
-        }
-        if (point.Id.Length > MaximumTextLength)
-        {
-            errors.Add(new($"{pointer}/id", $"id is longer than {MaximumTextLength} characters"));
-            return null;
-        }
-        return point.Id.Trim();
-    }
-
-    private static void CheckSigma(double? sigma, PointPointer point, string field, List<InputError> errors)
-    {
-        if (sigma is { } s && (!double.IsFinite(s) || s < 0))
-            errors.Add(new($"{point}/{field}", Format($"{sigma} is not a standard deviation: give a non-negative number in the CRS unit")));
-    }
-
-    private static void CheckIds(List<FramedPoint> marks, List<FramedPoint> fixes, List<InputError> errors)
+    private static void ReportDuplicateMarkIds(List<FramedPoint> marks, List<InputError> errors)
     {
         var markIds = new HashSet<string>(StringComparer.Ordinal);
         foreach (var mark in marks.Where(mark => !markIds.Add(mark.Id)))
             errors.Add(new(Format($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
-
-        foreach (var fix in fixes.Where(f => f.MarkId is { Length: > 0 } && !markIds.Contains(f.MarkId)))
-            errors.Add(new(Format($"/fixes/points/{fix.Index}/mark"), $"no mark has the id \"{fix.MarkId}\""));
     }
 
     private static RequiredAccuracy? ReadSpec(AccuracySpec? spec, List<InputError> errors)

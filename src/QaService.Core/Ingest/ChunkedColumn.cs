@@ -13,14 +13,18 @@ internal sealed class ChunkedColumn<T>
     private const int ChunkMask = ChunkLength - 1;
 
     private readonly List<T[]> chunks = [];
+    private T[] last = [];
 
     public int Count { get; private set; }
 
     public void Add(T value)
     {
         if ((Count & ChunkMask) == 0)
-            chunks.Add(new T[ChunkLength]);
-        chunks[^1][Count & ChunkMask] = value;
+        {
+            last = new T[ChunkLength];
+            chunks.Add(last);
+        }
+        last[Count & ChunkMask] = value;
         Count++;
     }
 

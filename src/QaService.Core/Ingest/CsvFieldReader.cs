@@ -16,10 +16,19 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
 
     private readonly Dictionary<string, string> columnNames = new(StringComparer.Ordinal);
 
+    /// <summary>Every row, in file order.</summary>
     public IEnumerable<FieldRow> Read(Stream stream)
     {
+        var rows = new FieldRowList();
+        ReadInto(stream, rows, CancellationToken.None);
+        return rows.Rows;
+    }
+
+    /// <summary>Reads every row into <paramref name="sink"/>; a <see cref="FieldFileException"/> stops the file.</summary>
+    internal void ReadInto(Stream stream, IFieldRowSink sink, CancellationToken cancellationToken)
+    {
         using var text = TextDecoding.Open(stream);
-        var lines = new LineSource(text);
+        using var lines = new LineSource(text);
         var header = lines.ReadLine();
         while (header is not null && header.Trim().Length == 0)
             header = lines.ReadLine();
@@ -31,28 +40,78 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
         var (headers, quoteProblem) = CsvLine.Split(header, separator, lines);
         if (headers is null)
             throw new FieldFileException(headerLine, quoteProblem!);
-        var index = MapColumns(headers, headerLine);
+        var row = new CsvRowReader(MapColumns(headers, headerLine), columnNames);
 
         bool? comma = decimalComma ?? (separator == ',' ? false : null);
-        while (lines.ReadLine() is { } line)
+        var fields = new Range[headers.Count];
+        while (lines.TryReadLine(out var line))
         {
+            cancellationToken.ThrowIfCancellationRequested();
             var lineNumber = lines.LineNumber;
-            if (line.Trim().Length == 0)
+            if (line.IsWhiteSpace())
                 continue;
-            var (fields, problem) = CsvLine.Split(line, separator, lines);
-            if (fields is null)
+            ReadOnlySpan<char> record;
+            int count;
+            if (line.Contains('"'))
             {
-                yield return FieldRow.Bad(lineNumber, null, problem!);
+                // Quoted fields (RFC 4180 §2) may span lines: the rare case goes through the character-by-character splitter.
+                var (quoted, problem) = CsvLine.Split(line.ToString(), separator, lines);
+                if (quoted is null)
+                {
+                    sink.Problem(lineNumber, new FieldProblem(null, problem!));
+                    continue;
+                }
+                count = quoted.Count;
+                record = count == headers.Count ? Joined(quoted, fields) : default;
+            }
+            else
+            {
+                count = Cut(line, separator, fields);
+                record = line;
+            }
+            if (count != headers.Count)
+            {
+                sink.Problem(lineNumber, new FieldProblem(null, InvariantText.Format($"the row has {count} fields; the header has {headers.Count} (delimiter '{Show(separator)}')")));
                 continue;
             }
-            if (fields.Count != headers.Count)
-            {
-                yield return FieldRow.Bad(lineNumber, null, InvariantText.Format($"the row has {fields.Count} fields; the header has {headers.Count} (delimiter '{Show(separator)}')"));
-                continue;
-            }
-            comma ??= LooksLikeDecimalComma(fields, index);
-            yield return ReadRow(lineNumber, fields, index, comma.Value);
+            comma ??= row.LooksLikeDecimalComma(record, fields);
+            row.Read(lineNumber, record, fields, comma.Value, sink);
         }
+    }
+
+    /// <summary>
+    /// The field count of a record without quotes, cutting it at each delimiter into <paramref name="fields"/> while
+    /// they fit (the ranges matter only when the count is the header's). One pass over the characters: fields are
+    /// short, so a search call per field costs more than it saves.
+    /// </summary>
+    private static int Cut(ReadOnlySpan<char> line, char separator, Range[] fields)
+    {
+        var count = 0;
+        var start = 0;
+        for (var i = 0; i < line.Length; i++)
+        {
+            if (line[i] != separator)
+                continue;
+            if (count < fields.Length)
+                fields[count] = new Range(start, i);
+            count++;
+            start = i + 1;
+        }
+        if (count < fields.Length)
+            fields[count] = new Range(start, line.Length);
+        return count + 1;
+    }
+
+    /// <summary>The fields of a quoted record laid end to end, with their ranges.</summary>
+    private static string Joined(List<string> quoted, Range[] fields)
+    {
+        var at = 0;
+        for (var i = 0; i < quoted.Count; i++)
+        {
+            fields[i] = new Range(at, at + quoted[i].Length);
+            at += quoted[i].Length;
+        }
+        return string.Concat(quoted);
     }
 
     private Dictionary<string, int> MapColumns(List<string> headers, long headerLine)
@@ -78,46 +137,6 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
         foreach (var (field, i) in index)
             columnNames[field] = headers[i].Trim();
         return index;
-    }
-
-    private static bool LooksLikeDecimalComma(List<string> fields, Dictionary<string, int> index) =>
-        index.Where(kv => kv.Key is not (ContractFields.Id or ContractFields.Mark or ContractFields.Time))
-            .Select(kv => fields[kv.Value].Trim())
-            .Any(v => v.Contains(',') && !v.Contains('.') && FieldText.TryNumber(v, decimalComma: true, out _));
-
-    private FieldRow ReadRow(long line, List<string> fields, Dictionary<string, int> index, bool comma)
-    {
-        string? Text(string field) => index.TryGetValue(field, out var i) && fields[i].Trim() is { Length: > 0 } t ? t : null;
-
-        FieldProblem? problem = null;
-        double? Number(string field, bool angle = false)
-        {
-            if (Text(field) is not { } t)
-                return null;
-            var ok = angle ? FieldText.TryAngle(t, comma, out var value) : FieldText.TryNumber(t, comma, out value);
-            if (ok)
-                return value;
-            var kind = angle ? "an angle (decimal degrees or degrees-minutes-seconds)" : comma ? "a number with a decimal comma" : "a number";
-            problem ??= new FieldProblem(field, InvariantText.Format($"column {index[field] + 1} (\"{columnNames[field]}\"): \"{Shorten(t)}\" is not {kind}"));
-            return null;
-        }
-
-        DateTimeOffset? time = null;
-        if (Text(ContractFields.Time) is { } timeText)
-        {
-            if (FieldText.TryTime(timeText, out var parsed))
-                time = parsed;
-            else
-                problem ??= new FieldProblem(ContractFields.Time, InvariantText.Format($"column {index[ContractFields.Time] + 1} (\"{columnNames[ContractFields.Time]}\"): \"{Shorten(timeText)}\" is not an ISO 8601 time"));
-        }
-        var point = new PointRecord(
-            Id: Text(ContractFields.Id), Mark: Text(ContractFields.Mark),
-            Lat: Number(ContractFields.Lat, angle: true), Lon: Number(ContractFields.Lon, angle: true),
-            E: Number(ContractFields.E), N: Number(ContractFields.N),
-            X: Number(ContractFields.X), Y: Number(ContractFields.Y), Z: Number(ContractFields.Z),
-            H: Number(ContractFields.H), SigmaH: Number(ContractFields.SigmaH), SigmaV: Number(ContractFields.SigmaV),
-            Time: time);
-        return problem is null ? new FieldRow(line, point) : new FieldRow(line, null, null, problem);
     }
 
     private static string Show(char c) => c == '\t' ? "tab" : c.ToString();

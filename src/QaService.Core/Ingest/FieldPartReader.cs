@@ -29,17 +29,20 @@ public static class FieldPartReader
             var unitProblem = LengthFactor(options, crs, out var factor);
             if (unitProblem is not null)
                 return (null, new InputError($"/options/{part}/lengthUnit", unitProblem));
+            var sink = new PartSink(part, segment, points, problems);
             var (rows, csv, nmea) = Reader(format.Value, options, crs);
-            foreach (var row in rows(content))
+            if (csv is not null)
+                csv.ReadInto(content, sink, cancellationToken);
+            else
             {
-                cancellationToken.ThrowIfCancellationRequested();
-                if (row.Problem is { } p)
+                foreach (var row in rows!(content))
                 {
-                    var pointer = InvariantText.Format($"/{part}/{segment}/{row.Row}") + (p.Field is null ? "" : "/" + p.Field);
-                    problems.Add(new InputError(pointer, p.Message));
+                    cancellationToken.ThrowIfCancellationRequested();
+                    if (row.Problem is { } p)
+                        sink.Problem(row.Row, p);
+                    else
+                        points.Add(row.Row, row.Point!);
                 }
-                else
-                    points.Add(row.Row, row.Point!);
             }
             if (factor != 1.0)
                 points.ScaleLengths(factor);
@@ -53,13 +56,14 @@ public static class FieldPartReader
         return (new PartReading(part, format.Value, points, problems, columns, withoutFix), null);
     }
 
-    private static (Func<Stream, IEnumerable<FieldRow>> Rows, CsvFieldReader? Csv, NmeaFieldReader? Nmea) Reader(FieldFormat format, FilePartOptions? options, CoordinateReferenceSystem? crs)
+    /// <summary>The format's reader: a CSV reader works in place (no rows), the others yield rows.</summary>
+    private static (Func<Stream, IEnumerable<FieldRow>>? Rows, CsvFieldReader? Csv, NmeaFieldReader? Nmea) Reader(FieldFormat format, FilePartOptions? options, CoordinateReferenceSystem? crs)
     {
         switch (format)
         {
             case FieldFormat.Csv:
                 var csv = new CsvFieldReader(options?.Columns, DecimalComma(options?.DecimalSeparator), Delimiter(options?.Delimiter));
-                return (csv.Read, csv, null);
+                return (null, csv, null);
             case FieldFormat.GeoJson:
                 var axes = crs?.Kind switch { CrsKind.Projected => PositionAxes.EastNorthH, CrsKind.Geocentric => PositionAxes.Xyz, _ => PositionAxes.LonLatH };
                 return (new GeoJsonFieldReader(axes).Read, null, null);
@@ -104,5 +108,18 @@ public static class FieldPartReader
         if (crs is not null)
             factor = unit.MetresPerUnit / crs.Unit.MetresPerUnit;
         return null;
+    }
+
+    /// <summary>Points go to the part's column store; problems get the part's row pointer.</summary>
+    private sealed class PartSink(string part, string segment, PointColumns points, List<InputError> problems) : IFieldRowSink
+    {
+        public void Point(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
+            points.Add(row, id, mark, numbers, time);
+
+        public void Problem(long row, FieldProblem problem)
+        {
+            var pointer = InvariantText.Format($"/{part}/{segment}/{row}") + (problem.Field is null ? "" : "/" + problem.Field);
+            problems.Add(new InputError(pointer, problem.Message));
+        }
     }
 }

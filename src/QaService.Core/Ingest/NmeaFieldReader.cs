@@ -23,7 +23,7 @@ public sealed class NmeaFieldReader(bool wantHeights)
     public IEnumerable<FieldRow> Read(Stream stream)
     {
         using var text = TextDecoding.Open(stream);
-        var lines = new LineSource(text);
+        using var lines = new LineSource(text);
         Pending? pending = null;
         DateOnly? date = null;
         TimeSpan? lastTime = null;

@@ -7,7 +7,7 @@ namespace QaService.Core.Ingest;
 /// cost tens of megabytes rather than a million objects. Presents itself as the request's point list;
 /// each <see cref="PointRecord"/> is made when asked for. Also keeps each point's row in its file.
 /// </summary>
-public sealed class PointColumns : IReadOnlyList<PointRecord?>
+public sealed class PointColumns : IPointValueList
 {
     private const long NoTime = long.MinValue;
 
@@ -15,49 +15,59 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     private readonly ChunkedColumn<string?> ids = new();
     private readonly ChunkedColumn<string?> marks = new();
     private readonly Dictionary<string, string> markNames = new(StringComparer.Ordinal);
+    private string? lastMark;
     // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
     private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
     private ChunkedColumn<long>? timeTicks;
-    private const int NumberFields = 10;
+    internal const int NumberFields = 10;
 
     public int Count => rows.Count;
 
     /// <summary>Row of point <paramref name="index"/> in its file (line, or GeoJSON feature index).</summary>
     public long RowOf(int index) => rows[index];
 
-    public void Add(long row, PointRecord point)
+    /// <summary>Number fields in column order (the order of the values a reader adds).</summary>
+    internal static IReadOnlyList<string> NumberFieldNames { get; } =
+    [
+        ContractFields.Lat, ContractFields.Lon, ContractFields.E, ContractFields.N, ContractFields.X,
+        ContractFields.Y, ContractFields.Z, ContractFields.H, ContractFields.SigmaH, ContractFields.SigmaV,
+    ];
+
+    public void Add(long row, PointRecord point) =>
+        Append(row, point.Id, point.Mark is null ? null : Shared(point.Mark),
+            [Given(point.Lat), Given(point.Lon), Given(point.E), Given(point.N), Given(point.X),
+             Given(point.Y), Given(point.Z), Given(point.H), Given(point.SigmaH), Given(point.SigmaV)],
+            point.Time?.UtcTicks);
+
+    /// <summary>A point read in place (CSV): empty text means not given; the mark is kept as one shared string per distinct id.</summary>
+    /// <param name="numbers">The <see cref="NumberFieldNames"/> fields in order, NaN where not given (readers accept finite numbers only).</param>
+    internal void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
+        Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks);
+
+    private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks)
     {
         var index = rows.Count;
         rows.Add(row);
-        ids.Add(point.Id);
-        marks.Add(point.Mark is null ? null : Shared(point.Mark));
-        AddNumber(0, index, point.Lat);
-        AddNumber(1, index, point.Lon);
-        AddNumber(2, index, point.E);
-        AddNumber(3, index, point.N);
-        AddNumber(4, index, point.X);
-        AddNumber(5, index, point.Y);
-        AddNumber(6, index, point.Z);
-        AddNumber(7, index, point.H);
-        AddNumber(8, index, point.SigmaH);
-        AddNumber(9, index, point.SigmaV);
-        if (point.Time is { } time)
+        ids.Add(id);
+        marks.Add(sharedMark);
+        for (var field = 0; field < NumberFields; field++)
+        {
+            var value = numbers[field];
+            if (!double.IsNaN(value))
+                (this.numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(value);
+            else
+                this.numbers[field]?.Add(double.NaN);
+        }
+        if (utcTicks is { } ticks)
         {
             timeTicks ??= ChunkedColumn<long>.Filled(index, NoTime);
-            timeTicks.Add(time.UtcTicks);
+            timeTicks.Add(ticks);
         }
         else
             timeTicks?.Add(NoTime);
     }
 
-    private void AddNumber(int field, int index, double? value)
-    {
-        if (value is { } v)
-            (numbers[field] ??= ChunkedColumn<double>.Filled(index, double.NaN)).Add(v);
-        else
-            numbers[field]?.Add(double.NaN);
-    }
-
+    private static double Given(double? value) => value ?? double.NaN;
 
     /// <summary>Multiplies every length (not lat/lon) of every point by <paramref name="factor"/> (a file length unit to the CRS unit).</summary>
     public void ScaleLengths(double factor)
@@ -76,12 +86,22 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
     {
         get
         {
-            double? At(int field) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;
-            var ticks = timeTicks?[index] ?? NoTime;
-            return new PointRecord(ids[index], marks[index], At(0), At(1), At(2), At(3), At(4), At(5), At(6), At(7), At(8), At(9),
-                ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
+            TryGetValues(index, out var p);
+            return new PointRecord(p.Id, p.Mark, p.Lat, p.Lon, p.E, p.N, p.X, p.Y, p.Z, p.H, p.SigmaH, p.SigmaV, p.Time);
         }
     }
+
+    /// <summary>Point <paramref name="index"/> read from the columns (never null here).</summary>
+    public bool TryGetValues(int index, out PointValues point)
+    {
+        var ticks = timeTicks?[index] ?? NoTime;
+        point = new PointValues(ids[index], marks[index], At(0, index), At(1, index), At(2, index), At(3, index), At(4, index),
+            At(5, index), At(6, index), At(7, index), At(8, index), At(9, index),
+            ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
+        return true;
+    }
+
+    private double? At(int field, int index) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;
 
     /// <summary>A copy without the points at <paramref name="drop"/> (lenient reading).</summary>
     public PointColumns Without(IReadOnlySet<int> drop)
@@ -110,5 +130,23 @@ public sealed class PointColumns : IReadOnlyList<PointRecord?>
             return existing;
         markNames[mark] = mark;
         return mark;
+    }
+
+    /// <summary>
+    /// As <see cref="Shared(string)"/>, looked up by the text itself so a repeated id costs no string; a run of fixes
+    /// on one mark (repeat occupations are often logged together) is recognised without a lookup.
+    /// </summary>
+    private string Shared(ReadOnlySpan<char> mark)
+    {
+        if (lastMark is { } last && mark.SequenceEqual(last))
+            return last;
+        var byText = markNames.GetAlternateLookup<ReadOnlySpan<char>>();
+        if (!byText.TryGetValue(mark, out var name))
+        {
+            name = mark.ToString();
+            markNames[name] = name;
+        }
+        lastMark = name;
+        return name;
     }
 }
