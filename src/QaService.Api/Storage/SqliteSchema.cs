@@ -33,18 +33,11 @@ internal static class SqliteSchema
         """,
     ];
 
-    /// <summary>Page size of a new database file: SQLite's largest (https://sqlite.org/pragma.html#pragma_page_size).</summary>
-    public const int PageSizeBytes = 65_536;
-
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)
     {
         await using (var wal = connection.CreateCommand())
         {
-            // Page size first: it only takes effect on a new, empty file, and not once WAL mode is set. Large pages
-            // halve the cost of storing a large report (fewer overflow pages and WAL frame headers; a 60 MB report
-            // committed in 0.11 s with 64 KiB pages, 0.17 s with the default 4 KiB, measured here with Python's sqlite3 module, SQLite 3.40, no automatic checkpoint).
-            // Existing files keep their page size.
-            wal.CommandText = $"PRAGMA page_size = {PageSizeBytes}; PRAGMA journal_mode = WAL;";
+            wal.CommandText = "PRAGMA journal_mode = WAL;";
             await wal.ExecuteNonQueryAsync(cancellationToken);
         }
         // BEGIN IMMEDIATE takes the write lock first, so two processes starting together migrate one after the other.
