@@ -30,6 +30,7 @@ internal static class ServiceSetup
         builder.Services.AddOptions<LimitsOptions>().BindConfiguration(LimitsOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
+        builder.Services.AddOptions<WarmUp.WarmUpOptions>().BindConfiguration(WarmUp.WarmUpOptions.Section);
 
         // Read now as well (Kestrel, the rate limiter and the timeout policy are built from it), so check it now too.
         var limits = builder.Configuration.GetSection(LimitsOptions.Section).Get<LimitsOptions>() ?? new LimitsOptions();
@@ -52,6 +53,7 @@ internal static class ServiceSetup
         builder.Services.AddSingleton<MultipartUploadReader>();
         builder.Services.AddHostedService<StartupTasks>();
         builder.Services.AddHostedService<ExposureWarning>();
+        builder.Services.AddHostedService<WarmUp.CodeWarmUp>();
 
         builder.Services.AddOpenTelemetry().WithMetrics(metrics => metrics
             .AddMeter(QaMetrics.MeterName, "Microsoft.AspNetCore.Hosting", "Microsoft.AspNetCore.Server.Kestrel", "Microsoft.AspNetCore.RateLimiting")

@@ -13,11 +13,14 @@ internal sealed class QaMetrics
 
     private readonly Counter<long> assessments;
     private readonly Counter<long> points;
+    private double warmUpSeconds = double.NaN; // NaN until the warm-up has finished
 
     public QaMetrics(IMeterFactory meters)
     {
         var meter = meters.Create(MeterName);
         assessments = meter.CreateCounter<long>("qaservice.assessments", unit: "{assessment}", description: "Assessments stored, by verdict");
+        meter.CreateObservableGauge("qaservice.warmup.duration", () => Volatile.Read(ref warmUpSeconds) is var seconds && !double.IsNaN(seconds) ? [new Measurement<double>(seconds)] : Array.Empty<Measurement<double>>(),
+            unit: "s", description: "Time the start-up warm-up upload took; absent until it has finished");
         points = meter.CreateCounter<long>("qaservice.points.processed", unit: "{point}", description: "Marks and fixes read by stored assessments and transform requests");
     }
 
@@ -26,6 +29,8 @@ internal sealed class QaMetrics
         assessments.Add(1, new KeyValuePair<string, object?>("verdict", verdict));
         points.Add(pointCount, new KeyValuePair<string, object?>("endpoint", "assessments"));
     }
+
+    public void WarmUpFinished(double seconds) => Volatile.Write(ref warmUpSeconds, seconds);
 
     public void PointsTransformed(int pointCount) => points.Add(pointCount, new KeyValuePair<string, object?>("endpoint", "transform"));
 }

@@ -15,6 +15,8 @@ public sealed class QaServiceFactory : WebApplicationFactory<Program>
         {
             ["Storage:ConnectionString"] = $"Data Source={DatabasePath};Pooling=False",
             ["Demo:Enabled"] = demo ? "true" : "false",
+            // Hundreds of hosts start in a run: the start-up warm-up upload is tested on its own (WarmUpTests).
+            ["WarmUp:Enabled"] = "false",
             ["Serilog:MinimumLevel:Default"] = "Warning",
             // Sweeps send thousands of requests from one in-memory client; LimitTests sets its own limit.
             ["Limits:RateLimitPermits"] = "1000000",
