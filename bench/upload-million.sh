@@ -37,6 +37,8 @@ dotnet publish src/QaService.Api -c Release -o "$work/app" --nologo -v quiet >/d
   --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Limits:MaxPoints=2000000 --Serilog:MinimumLevel:Default=Warning >"$work/service.log" 2>&1 &
 timepid=$!
 for _ in $(seq 1 100); do curl -fs "http://127.0.0.1:$port/healthz" >/dev/null && break; sleep 0.2; done
+# The service's start-up warm-up (an invented upload run in memory) has finished when its duration is in /metrics.
+for _ in $(seq 1 150); do curl -fs "http://127.0.0.1:$port/metrics" | grep -q '^qaservice_warmup_duration_seconds{' && break; sleep 0.2; done
 pid=$(pgrep -P "$timepid" | head -1)
 [ -n "$pid" ] || { echo "service did not start; see $work/service.log"; cat "$work/service.log"; exit 1; }
 
