@@ -21,7 +21,9 @@ internal static class StageTimes
         var rounds = args.Length > 4 ? int.Parse(args[4], System.Globalization.CultureInfo.InvariantCulture) : 5;
         var options = JsonSerializer.Deserialize<UploadOptions>(await File.ReadAllBytesAsync(optionsPath), ReportJson.Read)!;
         var best = new Dictionary<string, double>(StringComparer.Ordinal);
+        var allocated = new Dictionary<string, double>(StringComparer.Ordinal);
         var order = new List<string>();
+        // Times and bytes allocated (all threads) per stage; bytes from the last round.
         for (var round = 0; round <= rounds; round++)
         {
             var times = await OneRoundAsync(marksPath, fixesPath, options);
@@ -30,22 +32,26 @@ internal static class StageTimes
                 order.AddRange(times.Select(t => t.Stage));
                 continue; // warm-up
             }
-            foreach (var (stage, ms) in times)
+            foreach (var (stage, ms, megabytes) in times)
+            {
                 best[stage] = best.TryGetValue(stage, out var b) ? Math.Min(b, ms) : ms;
+                allocated[stage] = megabytes;
+            }
         }
         foreach (var stage in order)
-            Console.WriteLine($"{stage,-34} {best[stage],9:F1} ms");
+            Console.WriteLine($"{stage,-34} {best[stage],9:F1} ms {allocated[stage],9:F1} MB allocated");
     }
 
-    private static async Task<List<(string Stage, double Ms)>> OneRoundAsync(string marksPath, string fixesPath, UploadOptions options)
+    private static async Task<List<(string Stage, double Ms, double AllocatedMegabytes)>> OneRoundAsync(string marksPath, string fixesPath, UploadOptions options)
     {
-        var times = new List<(string, double)>();
+        var times = new List<(string, double, double)>();
         var clock = Stopwatch.StartNew();
         T Time<T>(string stage, Func<T> work)
         {
+            var before = GC.GetTotalAllocatedBytes(precise: true);
             clock.Restart();
             var result = work();
-            times.Add((stage, clock.Elapsed.TotalMilliseconds));
+            times.Add((stage, clock.Elapsed.TotalMilliseconds, (GC.GetTotalAllocatedBytes(precise: true) - before) / 1e6));
             return result;
         }
 

@@ -70,9 +70,13 @@ public sealed class OutlierCheck : IDataCheck
     private static double Flag(double[] values, Func<int, string> fixOf, SortedSet<string> flagged)
     {
         var median = Percentile.LinearInterpolation(values, 0.5);
-        var deviations = values.Select(v => Math.Abs(v - median)).ToArray();
+        using var deviationCopy = new Statistics.PooledScratch(values.Length);
+        var deviations = deviationCopy.Span;
+        for (var i = 0; i < values.Length; i++)
+            deviations[i] = Math.Abs(values[i] - median);
         var mad = Percentile.LinearInterpolation(deviations, 0.5);
-        var scale = mad > 0 ? mad / NormalQuartile : deviations.Average() * MeanAbsoluteDeviationToSigma;
+        // The mean deviation only when the MAD is zero (degenerate data): Enumerable.Average as before, on a copy.
+        var scale = mad > 0 ? mad / NormalQuartile : deviations.ToArray().Average() * MeanAbsoluteDeviationToSigma;
         if (scale <= 0)
             return 0;
         var largest = 0.0;

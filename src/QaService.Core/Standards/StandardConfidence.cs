@@ -77,10 +77,18 @@ public static class StandardConfidence
         return k >= n ? 1.0 : Beta.InvCDF(k + 1, n - k, level);
     }
 
+    /// <summary>The values without a copy when they already sit in an array or list (a copy of 400,000 is a large-object allocation).</summary>
+    private static ReadOnlySpan<double> AsSpan(IReadOnlyList<double> values) => values switch
+    {
+        double[] array => array,
+        List<double> list => System.Runtime.InteropServices.CollectionsMarshal.AsSpan(list),
+        _ => values.ToArray(),
+    };
+
     private static AxisConfidence Axis(double rmse, double nu, int n, double level, IReadOnlyList<double> values, StandardResult standard, string axis, double upperRatio)
     {
         var (lower, upper) = RmseConfidence.Interval(rmse, nu, level);
-        (double, double)? bootstrap = values.Count >= 2 ? BootstrapInterval.OfQuantile(values.ToArray(), 0.95, level) : null;
+        (double, double)? bootstrap = values.Count >= 2 ? BootstrapInterval.OfQuantile(AsSpan(values), 0.95, level) : null;
         var judgedFigure = standard.Figures.FirstOrDefault(f => f.Judged && f.Axis == axis && f.Required is not null && f.Unit == "m");
         int? needed = null;
         string advice;

@@ -54,7 +54,8 @@ public static class BootstrapInterval
         {
             // The limit needs four order statistics, not the whole order: selected in ascending rank (the lower bound's
             // ranks come first, z < 0), they are the values a sort would give.
-            var ranks = new OrderStatistic.AscendingRanks(values.ToArray());
+            using var copy = PooledScratch.CopyOf(values);
+            var ranks = new OrderStatistic.AscendingRanks(copy.Span);
             double lowerBound = AtRank(ref ranks, n, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, tail));
             return (lowerBound, AtRank(ref ranks, n, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, 1.0 - tail)));
         }

@@ -71,7 +71,8 @@ public sealed record HorizontalAccuracy(
         double drms = Math.Sqrt(meanSquareE + meanSquareN);
         (double nssda95, string method) = Nssda.Horizontal(rmseE, rmseN);
 
-        double[] radial = new double[n];
+        using var radialCopy = new PooledScratch(n);
+        Span<double> radial = radialCopy.Span;
         for (int i = 0; i < n; i++)
         {
             radial[i] = double.Hypot(dEMetres[i], dNMetres[i]);

@@ -20,7 +20,8 @@ public static class Percentile
         SampleMoments.RequireFinite(values, minimumCount: 1);
         RequireProbability(probability);
         // Two order statistics by selection, not a sort: O(n) for the medians of large uploads, same result bit for bit.
-        double[] scratch = values.ToArray();
+        using var copy = PooledScratch.CopyOf(values);
+        Span<double> scratch = copy.Span;
         double h = (scratch.Length - 1) * probability;
         int lower = (int)Math.Floor(h);
         if (lower >= scratch.Length - 1)
@@ -29,7 +30,7 @@ public static class Percentile
         }
 
         double below = OrderStatistic.Select(scratch, lower);
-        double above = OrderStatistic.Minimum(scratch.AsSpan(lower + 1));
+        double above = OrderStatistic.Minimum(scratch[(lower + 1)..]);
         return below + ((h - lower) * (above - below));
     }
 

@@ -25,7 +25,8 @@ public sealed record VerticalAccuracy(int N, double Mean, double? Sd, double Rms
     {
         double rmse = SampleMoments.RootMeanSquareAboutZero(dUMetres);
         int n = dUMetres.Length;
-        double[] absolute = new double[n];
+        using var absoluteCopy = new PooledScratch(n);
+        Span<double> absolute = absoluteCopy.Span;
         for (int i = 0; i < n; i++)
         {
             absolute[i] = Math.Abs(dUMetres[i]);
