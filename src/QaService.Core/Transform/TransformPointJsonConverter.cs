@@ -46,8 +46,18 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
             present[4] ? values[4] : null, present[5] ? values[5] : null, present[6] ? values[6] : null, present[7] ? values[7] : null);
     }
 
-    public override void Write(Utf8JsonWriter writer, TransformPoint value, JsonSerializerOptions options) =>
-        throw new NotSupportedException("transform points are read, not written, through this converter");
+    /// <summary>Writes the fields that are set, as a client sends them (the service itself only reads points).</summary>
+    public override void Write(Utf8JsonWriter writer, TransformPoint value, JsonSerializerOptions options)
+    {
+        writer.WriteStartObject();
+        double?[] fields = [value.Lat, value.Lon, value.E, value.N, value.X, value.Y, value.Z, value.H];
+        for (var i = 0; i < fields.Length; i++)
+        {
+            if (fields[i] is { } number)
+                writer.WriteNumber(Names[i], number);
+        }
+        writer.WriteEndObject();
+    }
 
     /// <summary>Field names in <see cref="TransformPoint"/> constructor order.</summary>
     private static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];

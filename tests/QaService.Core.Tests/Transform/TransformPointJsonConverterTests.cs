@@ -36,6 +36,9 @@ public sealed class TransformPointJsonConverterTests
         var expected = JsonSerializer.Deserialize<TransformRequest>(body, Serializer)!;
         var actual = JsonSerializer.Deserialize<TransformRequest>(body, ReportJson.Read)!;
         Assert.Equal(expected.Points!, actual.Points!);
+        // Written back through the converter and read by the serializer: the same points.
+        var written = JsonSerializer.Serialize(actual, ReportJson.Read);
+        Assert.Equal(expected.Points!, JsonSerializer.Deserialize<TransformRequest>(written, Serializer)!.Points!);
     }
 
     [Theory]
