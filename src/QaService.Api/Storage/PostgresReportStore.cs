@@ -1,4 +1,6 @@
+using System.Data;
 using Npgsql;
+using NpgsqlTypes;
 
 namespace QaService.Api.Storage;
 
@@ -23,6 +25,55 @@ internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReport
         command.Parameters.Add(new NpgsqlParameter { Value = report.Verdict });
         command.Parameters.Add(new NpgsqlParameter { Value = report.Json });
         await command.ExecuteNonQueryAsync(cancellationToken);
+    }
+
+    /// <summary>
+    /// Streams the JSON into the text column: Npgsql writes a seekable stream's bytes as the parameter (its length is
+    /// known), so a large report is never one string here. The bytes are UTF-8, the database encoding of the schema.
+    /// </summary>
+    public async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand(
+            "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($1, $2, $3, $4, $5, $6)");
+        command.Parameters.Add(new NpgsqlParameter { Value = header.Tenant });
+        command.Parameters.Add(new NpgsqlParameter { Value = header.Id });
+        command.Parameters.Add(new NpgsqlParameter { Value = header.CreatedAt.ToUniversalTime() });
+        command.Parameters.Add(new NpgsqlParameter { Value = (object?)header.Title ?? DBNull.Value, NpgsqlDbType = NpgsqlDbType.Text });
+        command.Parameters.Add(new NpgsqlParameter { Value = header.Verdict });
+        command.Parameters.Add(new NpgsqlParameter { Value = json, NpgsqlDbType = NpgsqlDbType.Text });
+        await command.ExecuteNonQueryAsync(cancellationToken);
+    }
+
+    /// <summary>
+    /// Reads the JSON as a stream of its UTF-8 bytes (sequential access: the row is not buffered), with its length from
+    /// <c>octet_length</c>; the stream owns the reader, the command and the connection.
+    /// </summary>
+    public async Task<Stream?> OpenJsonAsync(string tenant, string id, CancellationToken cancellationToken)
+    {
+        var connection = await dataSource.OpenConnectionAsync(cancellationToken);
+        var owner = new DisposeAll(connection);
+        try
+        {
+            var command = new NpgsqlCommand("SELECT octet_length(json), json FROM reports WHERE tenant = $1 AND id = $2", connection);
+            owner.Add(command);
+            command.Parameters.Add(new NpgsqlParameter { Value = tenant });
+            command.Parameters.Add(new NpgsqlParameter { Value = id });
+            var reader = await command.ExecuteReaderAsync(CommandBehavior.SequentialAccess | CommandBehavior.SingleRow, cancellationToken);
+            owner.Add(reader);
+            if (!await reader.ReadAsync(cancellationToken))
+            {
+                await owner.DisposeAsync();
+                return null;
+            }
+            var length = reader.GetInt32(0);
+            var stream = await reader.GetStreamAsync(1, cancellationToken);
+            return new OwningStream(new KnownLengthStream(stream, length), owner);
+        }
+        catch
+        {
+            await owner.DisposeAsync();
+            throw;
+        }
     }
 
     public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)

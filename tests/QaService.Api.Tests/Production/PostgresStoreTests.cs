@@ -73,6 +73,45 @@ public sealed class PostgresStoreTests
     }
 
     [PostgresFact]
+    public async Task A_large_report_streams_in_and_out_byte_for_byte()
+    {
+        var schema = $"qa_stream_{Guid.NewGuid():N}";
+        await using (var admin = NpgsqlDataSource.Create(PostgresFactAttribute.ConnectionString!))
+            await admin.CreateCommand($"CREATE SCHEMA {schema}").ExecuteNonQueryAsync();
+        await using var source = NpgsqlDataSource.Create($"{PostgresFactAttribute.ConnectionString};Search Path={schema}");
+        try
+        {
+            var store = new PostgresReportStore(source);
+            await store.InitializeAsync(CancellationToken.None);
+            var json = System.Text.Encoding.UTF8.GetBytes("{\"text\":\"" + new string('é', 1_500_000) + "\"}");
+            var stream = new MemoryStream(json);
+            await ((IReportStore)store).SaveAsync(new ReportHeader("t1", "big", DateTimeOffset.UnixEpoch, "title", "pass"), stream, CancellationToken.None);
+
+            // The caller answers from the same stream after saving (AssessmentsApi): it must still be open.
+            stream.Position = 0;
+            Assert.Equal(json.Length, stream.Length);
+            Assert.Equal(System.Text.Encoding.UTF8.GetString(json), await store.FindJsonAsync("t1", "big", CancellationToken.None));
+            await using (var read = await ((IReportStore)store).OpenJsonAsync("t1", "big", CancellationToken.None))
+            {
+                Assert.NotNull(read);
+                Assert.Equal(json.Length, read!.Length);
+                var copy = new MemoryStream();
+                await read.CopyToAsync(copy);
+                Assert.Equal(json, copy.ToArray());
+            }
+            Assert.Null(await ((IReportStore)store).OpenJsonAsync("t2", "big", CancellationToken.None));
+            await Assert.ThrowsAsync<PostgresException>(() => ((IReportStore)store).SaveAsync(
+                new ReportHeader("t1", "big", DateTimeOffset.UnixEpoch, null, "pass"), new MemoryStream("{}"u8.ToArray()), CancellationToken.None));
+            Assert.Equal(System.Text.Encoding.UTF8.GetString(json), await store.FindJsonAsync("t1", "big", CancellationToken.None));
+        }
+        finally
+        {
+            await using var admin = NpgsqlDataSource.Create(PostgresFactAttribute.ConnectionString!);
+            await admin.CreateCommand($"DROP SCHEMA {schema} CASCADE").ExecuteNonQueryAsync();
+        }
+    }
+
+    [PostgresFact]
     public async Task Instances_starting_together_migrate_once()
     {
         // A fresh schema, so the migrations really run here, from four stores at once.
