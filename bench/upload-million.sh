@@ -4,6 +4,7 @@
 # set size", and VmHWM from /proc/PID/status). Invented data: 24 marks (reference case 0), fixes
 # scattered about them by a seeded normal generator.
 #   bench/upload-million.sh [fix-count]        (needs the .NET SDK, python3, curl, /usr/bin/time)
+#   SERVICE_ARGS="--Storage:Provider=postgres --Storage:ConnectionString=..." bench/upload-million.sh   (other storage)
 set -euo pipefail
 cd "$(dirname "$0")/.."
 count=${1:-1000000}
@@ -34,7 +35,8 @@ ls -l "$work/fixes.csv" | awk '{printf "fixes.csv: %.1f MB\n", $5 / 1e6}'
 if curl -fs "http://127.0.0.1:$port/healthz" >/dev/null 2>&1; then echo "port $port is already in use"; exit 1; fi
 dotnet publish src/QaService.Api -c Release -o "$work/app" --nologo -v quiet >/dev/null
 /usr/bin/time -v -o "$work/time.txt" dotnet "$work/app/QaService.Api.dll" --urls "http://127.0.0.1:$port" \
-  --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Limits:MaxPoints=2000000 --Serilog:MinimumLevel:Default=Warning >"$work/service.log" 2>&1 &
+  --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Limits:MaxPoints=2000000 --Serilog:MinimumLevel:Default=Warning \
+  ${SERVICE_ARGS:-} >"$work/service.log" 2>&1 &
 timepid=$!
 for _ in $(seq 1 100); do curl -fs "http://127.0.0.1:$port/healthz" >/dev/null && break; sleep 0.2; done
 # The service's start-up warm-up (an invented upload run in memory) has finished when its duration is in /metrics.
