@@ -74,9 +74,9 @@ public sealed class OutlierCheck : IDataCheck
         var deviations = deviationCopy.Span;
         for (var i = 0; i < values.Length; i++)
             deviations[i] = Math.Abs(values[i] - median);
-        var mad = Percentile.LinearInterpolation(deviations, 0.5);
-        // The mean deviation only when the MAD is zero (degenerate data): Enumerable.Average as before, on a copy.
-        var scale = mad > 0 ? mad / NormalQuartile : deviations.ToArray().Average() * MeanAbsoluteDeviationToSigma;
+        var mad = Percentile.LinearInterpolationInPlace(deviations, 0.5);
+        // Degenerate data only (a zero MAD): the mean deviation, from the values again, as selection reordered the scratch.
+        var scale = mad > 0 ? mad / NormalQuartile : values.Select(v => Math.Abs(v - median)).Average() * MeanAbsoluteDeviationToSigma;
         if (scale <= 0)
             return 0;
         var largest = 0.0;

@@ -17,11 +17,19 @@ public static class Percentile
     /// <exception cref="ArgumentException">n = 0, a value is not finite, or p is outside [0, 1] or NaN.</exception>
     public static double LinearInterpolation(ReadOnlySpan<double> values, double probability)
     {
-        SampleMoments.RequireFinite(values, minimumCount: 1);
+        using var copy = PooledScratch.CopyOf(values);
+        return LinearInterpolationInPlace(copy.Span, probability);
+    }
+
+    /// <summary>
+    /// <see cref="LinearInterpolation(ReadOnlySpan{double}, double)"/> on values the caller owns as scratch: selection
+    /// reorders them, so no copy is made (for columns a caller has just built, such as absolute values or deviations).
+    /// </summary>
+    internal static double LinearInterpolationInPlace(Span<double> scratch, double probability)
+    {
+        SampleMoments.RequireFinite(scratch, minimumCount: 1);
         RequireProbability(probability);
         // Two order statistics by selection, not a sort: O(n) for the medians of large uploads, same result bit for bit.
-        using var copy = PooledScratch.CopyOf(values);
-        Span<double> scratch = copy.Span;
         double h = (scratch.Length - 1) * probability;
         int lower = (int)Math.Floor(h);
         if (lower >= scratch.Length - 1)

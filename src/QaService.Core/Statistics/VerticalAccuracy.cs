@@ -39,6 +39,6 @@ public sealed record VerticalAccuracy(int N, double Mean, double? Sd, double Rms
             Rmse: rmse,
             Nssda95: Nssda.Vertical(rmse),
             Le90: LinearError.Le90(rmse),
-            P95: Percentile.LinearInterpolation(absolute, PercentileProbability));
+            P95: Percentile.LinearInterpolationInPlace(absolute, PercentileProbability));
     }
 }
