@@ -4,10 +4,10 @@ using System.Text.Json;
 namespace QaService.Core.Reporting;
 
 /// <summary>
-/// Renders residual objects straight to UTF-8, byte for byte what <see cref="ResidualJsonConverter"/> writes through
-/// <see cref="Utf8JsonWriter"/> with the default encoder (names, order, fixed-resolution numbers, string escaping),
-/// without the writer's per-token bookkeeping. Strings of printable ASCII that the default encoder leaves alone are
-/// copied as they are; any other string goes through <see cref="JsonEncodedText"/>, the encoder itself.
+/// Renders residual objects straight to UTF-8: the one definition of a residual's JSON (names, order, fixed-resolution
+/// numbers), used by <see cref="ResidualJsonConverter"/> and by the parallel report writer. Strings are escaped as
+/// <see cref="Utf8JsonWriter"/> does with the default encoder: printable ASCII that the encoder leaves alone is copied
+/// as it is; any other string goes through <see cref="JsonEncodedText"/>, the encoder itself.
 /// </summary>
 internal static class ResidualJsonBytes
 {

@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 
@@ -5,7 +6,7 @@ namespace QaService.Core.Reporting;
 
 /// <summary>
 /// Writes and reads one <see cref="Residual"/> object. Writing is the hot loop of a large report (one object per fix),
-/// so the names are pre-encoded and the numbers written at a fixed resolution: residual components to the
+/// so it is rendered straight to UTF-8 (<see cref="ResidualJsonBytes"/>) with the numbers at a fixed resolution: residual components to the
 /// micrometre, mark positions to 1e-9 degree (about 0.1 mm on the ground), far below what any GNSS fix resolves
 /// (the statistics are computed from the unrounded values). Reading accepts any number form, so reports stored
 /// with full-precision numbers still load.
@@ -18,41 +19,20 @@ public sealed class ResidualJsonConverter : JsonConverter<Residual>
     /// <summary>Decimals of a degree written for the mark's latitude and longitude: 1e-9° ≈ 0.11 mm of latitude.</summary>
     public const int DegreeDecimals = 9;
 
-    private static readonly JsonEncodedText MarkName = JsonEncodedText.Encode("mark"), FixName = JsonEncodedText.Encode("fix"),
-        DEName = JsonEncodedText.Encode("dE"), DNName = JsonEncodedText.Encode("dN"), DUName = JsonEncodedText.Encode("dU"),
-        DHName = JsonEncodedText.Encode("dH"), PairedByName = JsonEncodedText.Encode("pairedBy"), ExcludedName = JsonEncodedText.Encode("excluded"),
-        LatitudeName = JsonEncodedText.Encode("markLatitude"), LongitudeName = JsonEncodedText.Encode("markLongitude");
-
+    /// <summary>Renders through <see cref="ResidualJsonBytes"/>, the one definition of a residual's JSON, as a raw value.</summary>
     public override void Write(Utf8JsonWriter writer, Residual value, JsonSerializerOptions options)
     {
-        writer.WriteStartObject();
-        writer.WriteString(MarkName, value.Mark);
-        writer.WriteString(FixName, value.Fix);
-        WriteFixed(writer, DEName, value.DE, ComponentDecimals);
-        WriteFixed(writer, DNName, value.DN, ComponentDecimals);
-        if (value.DU is { } up)
-            WriteFixed(writer, DUName, up, ComponentDecimals);
-        else
-            writer.WriteNull(DUName);
-        WriteFixed(writer, DHName, value.DH, ComponentDecimals);
-        writer.WriteString(PairedByName, value.PairedBy);
-        if (value.Excluded is { } reason)
-            writer.WriteString(ExcludedName, reason);
-        else
-            writer.WriteNull(ExcludedName);
-        WriteFixed(writer, LatitudeName, value.MarkLatitude, DegreeDecimals);
-        WriteFixed(writer, LongitudeName, value.MarkLongitude, DegreeDecimals);
-        writer.WriteEndObject();
-    }
-
-    private static void WriteFixed(Utf8JsonWriter writer, JsonEncodedText name, double value, int decimals)
-    {
-        Span<byte> text = stackalloc byte[FixedDecimalUtf8.MaximumBytes];
-        writer.WritePropertyName(name);
-        if (FixedDecimalUtf8.TryFormat(value, decimals, text, out var length))
-            writer.WriteRawValue(text[..length], skipInputValidation: true);
-        else
-            writer.WriteNumberValue(value);
+        var buffer = ArrayPool<byte>.Shared.Rent(ResidualJsonBytes.MaximumLength(value));
+        try
+        {
+            var cache = new EncodedStringCache();
+            var length = ResidualJsonBytes.Write(value, buffer, ref cache);
+            writer.WriteRawValue(buffer.AsSpan(0, length), skipInputValidation: true);
+        }
+        finally
+        {
+            ArrayPool<byte>.Shared.Return(buffer);
+        }
     }
 
     public override Residual Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)

@@ -77,6 +77,33 @@ public sealed class ResidualJsonTests
         Assert.Equal(residual with { DE = -0.031038, DN = 0.331185, DH = 0.332636, MarkLatitude = 50.012315519, MarkLongitude = 0 }, back);
     }
 
+    [Theory]
+    [InlineData("CP-01")]
+    [InlineData("=HYPERLINK(\"http://x\",\"y\")")]
+    [InlineData("<img src=x onerror=alert(1)>")]
+    [InlineData("+SUM(A1) `x` & 'y' \\ ~")]
+    [InlineData("M-2 ümlaut 北 😀")]
+    [InlineData("tab\tnul\u0000del\u007f")]
+    // Each character the default encoder escapes, alone in an otherwise plain id.
+    [InlineData("a\"b")]
+    [InlineData("a\\b")]
+    [InlineData("a&b")]
+    [InlineData("a'b")]
+    [InlineData("a<b")]
+    [InlineData("a>b")]
+    [InlineData("a+b")]
+    [InlineData("a`b")]
+    [InlineData("a\u007fb")]
+    [InlineData("a\u0080b")]
+    public void Ids_are_escaped_as_the_serializer_escapes_strings(string id)
+    {
+        // Reference: System.Text.Json writing the bare string with the same options (default encoder).
+        var expected = JsonSerializer.Serialize(id, ReportJson.Write);
+        var json = JsonSerializer.Serialize(new Residual(id, id, 0, 0, null, 0, "id", id, 0, 0), ReportJson.Write);
+        Assert.StartsWith($"{{\"mark\":{expected},\"fix\":{expected},", json);
+        Assert.Contains($",\"excluded\":{expected},", json);
+    }
+
     [Fact]
     public void Reports_stored_with_full_precision_and_unknown_fields_still_read()
     {
