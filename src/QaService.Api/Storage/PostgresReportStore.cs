@@ -14,24 +14,17 @@ internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReport
 {
     public Task InitializeAsync(CancellationToken cancellationToken) => PostgresSchema.MigrateAsync(dataSource, cancellationToken);
 
-    public async Task SaveAsync(StoredReport report, CancellationToken cancellationToken)
-    {
-        await using var command = dataSource.CreateCommand(
-            "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($1, $2, $3, $4, $5, $6)");
-        command.Parameters.Add(new NpgsqlParameter { Value = report.Tenant });
-        command.Parameters.Add(new NpgsqlParameter { Value = report.Id });
-        command.Parameters.Add(new NpgsqlParameter { Value = report.CreatedAt.ToUniversalTime() });
-        command.Parameters.Add(new NpgsqlParameter { Value = (object?)report.Title ?? DBNull.Value, NpgsqlDbType = NpgsqlTypes.NpgsqlDbType.Text });
-        command.Parameters.Add(new NpgsqlParameter { Value = report.Verdict });
-        command.Parameters.Add(new NpgsqlParameter { Value = report.Json });
-        await command.ExecuteNonQueryAsync(cancellationToken);
-    }
+    public Task SaveAsync(StoredReport report, CancellationToken cancellationToken) =>
+        InsertAsync(new ReportHeader(report.Tenant, report.Id, report.CreatedAt, report.Title, report.Verdict), report.Json, cancellationToken);
 
     /// <summary>
     /// Streams the JSON into the text column: Npgsql writes a seekable stream's bytes as the parameter (its length is
     /// known), so a large report is never one string here. The bytes are UTF-8, the database encoding of the schema.
     /// </summary>
-    public async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
+    public Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken) => InsertAsync(header, json, cancellationToken);
+
+    /// <summary>One INSERT for both forms of the JSON: a string, or a stream of its UTF-8 bytes.</summary>
+    private async Task InsertAsync(ReportHeader header, object json, CancellationToken cancellationToken)
     {
         await using var command = dataSource.CreateCommand(
             "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($1, $2, $3, $4, $5, $6)");
