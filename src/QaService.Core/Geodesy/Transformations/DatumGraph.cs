@@ -57,6 +57,20 @@ public sealed class DatumGraph
     /// <summary>EPSG datum ensembles: WGS 84 (EPSG:6326) and ETRS89 (EPSG:6258); endpoints only (see summary).</summary>
     private static readonly HashSet<string> EnsembleDatums = new(StringComparer.Ordinal) { "EPSG:6326", "EPSG:6258" };
 
+    /// <summary>
+    /// The frames a path may pass through (tools/geodesy/datum_scope.py HUBS and every ITRF): WGS 84 realisations,
+    /// ITRF, ETRF, NAD83, NAD83(2011), NAD83(CSRS), GDA94, GDA2020. Every other datum (a national datum such as DHDN, or
+    /// an intermediate frame such as "IG05/12 Intermediate") may only start or end a path: its transformations hold
+    /// in one country, so a detour through it would borrow an accuracy the path does not have elsewhere.
+    /// </summary>
+    private static readonly HashSet<string> ThoroughfareDatums = new(
+        new[] { 1166, 1152, 1153, 1154, 1155, 1156, 1309, 6656, 6896, 1061, 1165, 1322, 6647, 6648, 6649, 6650, 6651, 6652, 6653, 6654, 6655,
+            1178, 1179, 1180, 1181, 1182, 1183, 1184, 1185, 1186, 1204, 1206, 6269, 1116, 6140, 6283, 1168 }
+        .Select(c => InvariantText.Format($"EPSG:{c}")), StringComparer.Ordinal);
+
+    /// <summary>True when a path may pass through the datum (not only start or end there).</summary>
+    private static bool IsThoroughfare(string datum) => ThoroughfareDatums.Contains(datum);
+
     public DatumGraph(IEnumerable<DatumTransformationDefinition> helmerts, IEnumerable<FrameEquivalence> equivalences,
         IEnumerable<GridShiftDefinition> grids, IEnumerable<GridTransformationDefinition>? gridFiles = null)
     {
@@ -93,7 +107,10 @@ public sealed class DatumGraph
     public static DatumGraph Default { get; } = new(HelmertTable.Transformations, FrameEquivalence.All, [], GridTable.Transformations);
 
     /// <summary>This graph with more grid shifts (e.g. a user's NTv2 file between two datums).</summary>
-    public DatumGraph With(IEnumerable<GridShiftDefinition> grids) => new(_helmerts, _equivalences, _grids.Concat(grids), _gridFiles);
+    public DatumGraph With(IEnumerable<GridShiftDefinition> grids) => new(_helmerts, _equivalences, _grids.Concat(grids), _gridFiles) { GridLocator = GridLocator };
+
+    /// <summary>Finds a grid file's path, null when absent (tests replace it to simulate a machine without proj-data).</summary>
+    public Func<string, string?> GridLocator { get; init; } = GridFiles.Find;
 
     /// <summary>True when an EPSG transformation of this code is an edge of the graph.</summary>
     public bool Knows(int operationCode) => _edges.Values.Any(list => list.Any(e => e.OperationCode == operationCode));
@@ -127,9 +144,9 @@ public sealed class DatumGraph
             if (path is null)
                 return new DatumRoute(null, null);
         }
-        if (path.FirstOrDefault(e => e.GridFile is not null && GridFiles.Find(e.GridFile.FileName) is null) is { } missing)
+        if (path.FirstOrDefault(e => e.GridFile is not null && GridLocator(e.GridFile.FileName) is null) is { } missing)
         {
-            var without = FindPath(fromDatum, toDatum, pointsBox, e => e.GridFile is null || GridFiles.Find(e.GridFile.FileName) is not null);
+            var without = FindPath(fromDatum, toDatum, pointsBox, e => e.GridFile is null || GridLocator(e.GridFile.FileName) is not null);
             var hint = without?.FirstOrDefault(e => e.OperationCode != 0) is { } other
                 ? InvariantText.Format($"; or choose another operation with operationCode, e.g. {other.OperationCode} (EPSG:{other.OperationCode} \"{other.OperationName}\", {other.Step.AccuracyMetres:0.###} m)")
                 : "";
@@ -155,6 +172,9 @@ public sealed class DatumGraph
         IReadOnlyList<DatumEdge>? best = null;
         foreach (var edge in _edges.Values.SelectMany(l => l).Where(e => e.OperationCode == code))
         {
+            // The chosen operation's own ends obey the thoroughfare rule too (a user's pick is no licence for a detour).
+            if ((edge.FromDatum != fromDatum && !IsThoroughfare(edge.FromDatum)) || (edge.ToDatum != toDatum && !IsThoroughfare(edge.ToDatum)))
+                continue;
             bool Other(DatumEdge e) => e.OperationCode != code;
             var head = Search(fromDatum, edge.FromDatum, Other);
             var tail = Search(edge.ToDatum, toDatum, Other);
@@ -187,7 +207,7 @@ public sealed class DatumGraph
             if (best == toDatum)
                 break;
             done.Add(best);
-            if (best != fromDatum && EnsembleDatums.Contains(best))
+            if (best != fromDatum && (EnsembleDatums.Contains(best) || !IsThoroughfare(best)))
                 continue;
             foreach (var edge in _edges.GetValueOrDefault(best) ?? [])
             {
