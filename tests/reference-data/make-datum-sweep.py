@@ -5,7 +5,7 @@ against PROJ, each over its own EPSG area of use.
     cd <repo root> && python3 tests/reference-data/make-datum-sweep.py > tests/reference-data/datum-sweep-proj.tsv
 
 Needs PROJ (projinfo, cct; Debian proj-bin, proj-data). For each operation code: a geographic CRS on its source
-datum and one on its target datum (2D preferred; the ones EPSG names on the operation when they are geographic),
+datum and one on its target datum (the ones EPSG names on the operation when they are geographic 2D, else 3D ones),
 `projinfo -s SRC -t DST --spatial-test intersects -o PROJ` lists the candidates (a superseded operation, which
 that listing hides, is taken from `projinfo -k operation` when the CRSs are the operation's own), the candidate with this code is
 pinned (its pipeline goes into the file), and `cct` runs it on 4 points inside the area of use (fixed fractions
@@ -39,12 +39,28 @@ def geographic(datum, preferred):
     row = con.execute("select type from geodetic_crs where auth_name='EPSG' and code=?", (preferred,)).fetchone()
     if row and row[0] in ("geographic 2D",):
         return preferred
-    for kind in ("geographic 2D", "geographic 3D"):
+    # An operation EPSG defines between geocentric CRSs (time-dependent ones) is listed by projinfo between 3D CRSs.
+    for kind in ("geographic 3D", "geographic 2D") if row and row[0] != "geographic 2D" else ("geographic 2D", "geographic 3D"):
         row = con.execute("select code from geodetic_crs where auth_name='EPSG' and datum_auth_name='EPSG' and datum_code=? "
                           "and type=? and deprecated=0 order by cast(code as integer) limit 1", (datum, kind)).fetchone()
         if row:
             return int(row[0])
     return None
+
+
+def single_operation(head, name):
+    """True when projinfo's unnamed candidate is only this operation wrapped in CRS conversions (no second datum step)."""
+    steps = head[len("unknown id, "):].split(", ")[0].split(" + ")
+    others = [s for s in steps if s not in (name, "Inverse of " + name)]
+    return len(others) < len(steps) and all("onversion" in s for s in others)
+
+
+def name_of(code):
+    for table in ("helmert_transformation_table", "grid_transformation"):
+        row = con.execute(f"select name from {table} where auth_name='EPSG' and code=?", (code,)).fetchone()
+        if row:
+            return row[0]
+    raise KeyError(code)
 
 
 def operation_crs(code):
@@ -73,7 +89,9 @@ def pinned_pipeline_listed(src, dst, code, extra):
         if len(lines) < 3 or not lines[0].startswith("Operation No."):
             continue
         head = lines[1]
-        if re.match(rf"^(INVERSE\()?(DERIVED_FROM\()?EPSG\)*:{code},", head):
+        # By code, or (a concatenation of CRS conversions and the operation, which projinfo names "unknown id") by EPSG name.
+        if re.match(rf"^(INVERSE\()?(DERIVED_FROM\()?EPSG\)*:{code},", head) or (
+                head.startswith("unknown id, ") and single_operation(head, name_of(code))):
             i = lines.index("PROJ string:")
             return head, " ".join(l.strip() for l in lines[i + 1:] if not l.startswith("Grid "))
     return None, None

@@ -181,7 +181,10 @@ public sealed class DatumGraph
             if (head is null || tail is null)
                 continue;
             var path = head.Append(edge).Concat(tail).ToList();
-            if (best is null || path.Sum(e => e.Step.AccuracyMetres) < best.Sum(e => e.Step.AccuracyMetres))
+            // A path that visits a datum twice is a loop (possible when EPSG states accuracy 0 and sums tie): not a route.
+            if (path.Select(e => e.ToDatum).Append(fromDatum).Distinct(StringComparer.Ordinal).Count() != path.Count + 1)
+                continue;
+            if (best is null || Better((path.Sum(e => e.Step.AccuracyMetres), path.Count), (best.Sum(e => e.Step.AccuracyMetres), best.Count)))
                 best = path;
         }
         return best;

@@ -55,5 +55,44 @@ public sealed class PlateMotionTests
         Assert.Contains("own velocity", note, StringComparison.Ordinal);
     }
 
+    /// <summary>Fresh random points, plates and epochs through the cct on PATH (skips, saying so, without proj-bin).</summary>
+    [Fact]
+    public void RandomPlatesAndEpochs_AgreeWithInstalledCct()
+    {
+        var cct = (Environment.GetEnvironmentVariable("PATH") ?? "").Split(':').Select(d => Path.Combine(d, "cct")).FirstOrDefault(File.Exists);
+        if (cct is null)
+            return;
+        var seed = Environment.TickCount;
+        var rng = new Random(seed);
+        var crs = CrsCatalog.Resolve("EPSG:7912").Crs!;
+        foreach (var model in PlateMotionModel.All)
+        {
+            foreach (var name in model.Plates)
+            {
+                var plate = model.Plate(name)!;
+                var (lat, lon, t0, t1) = ((rng.NextDouble() * 160) - 80, (rng.NextDouble() * 360) - 180, 1995 + (rng.NextDouble() * 30), 1995 + (rng.NextDouble() * 30));
+                var pipeline = string.Create(CultureInfo.InvariantCulture,
+                    $"+proj=pipeline +step +proj=axisswap +order=2,1 +step +proj=unitconvert +xy_in=deg +xy_out=rad +step +proj=cart +ellps=GRS80 +step +proj=helmert +drx={plate.RxArcSecondsPerYear:R} +dry={plate.RyArcSecondsPerYear:R} +drz={plate.RzArcSecondsPerYear:R} +t_epoch={t0:R} +convention=position_vector +step +inv +proj=cart +ellps=GRS80 +step +proj=unitconvert +xy_in=rad +xy_out=deg +step +proj=axisswap +order=2,1");
+                var info = new System.Diagnostics.ProcessStartInfo(cct) { RedirectStandardInput = true, RedirectStandardOutput = true, UseShellExecute = false };
+                info.ArgumentList.Add("-d");
+                info.ArgumentList.Add("12");
+                foreach (var a in pipeline.Split(' '))
+                    info.ArgumentList.Add(a);
+                using var process = System.Diagnostics.Process.Start(info)!;
+                process.StandardInput.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{lat:R} {lon:R} 100 {t1:R}"));
+                process.StandardInput.Close();
+                var f = process.StandardOutput.ReadToEnd().Split((char[])[' ', '\t', '\n'], StringSplitOptions.RemoveEmptyEntries);
+                process.WaitForExit();
+                var frame = new PointSetFrame(crs, HeightReference.Ellipsoidal, null, t0, true) { PlateMotion = (model, plate) };
+                var mark = new FramedPoint(0, "m", null, new GeodeticCoordinate(lat, lon, 100), true, null, null, null);
+                var moved = EpochPropagation.CarryMarks([mark], frame, t0, t1).Marks[0].Geodetic;
+                var a1 = GeocentricConversion.ToGeocentric(moved, Ellipsoid.Grs80);
+                var b1 = GeocentricConversion.ToGeocentric(new GeodeticCoordinate(D(f[0]), D(f[1]), D(f[2])), Ellipsoid.Grs80);
+                var error = Math.Sqrt(Math.Pow(a1.XMetres - b1.XMetres, 2) + Math.Pow(a1.YMetres - b1.YMetres, 2) + Math.Pow(a1.ZMetres - b1.ZMetres, 2));
+                Assert.True(error <= ToleranceMetres, $"{model.Id} {name} ({lat}, {lon}) {t0}→{t1}: {error:E2} m, seed {seed}");
+            }
+        }
+    }
+
     private static double D(string s) => double.Parse(s, NumberStyles.Float, CultureInfo.InvariantCulture);
 }
