@@ -22,9 +22,9 @@ internal sealed class DocumentTransformer(IOptions<AuthOptions> auth) : IOpenApi
         document.Info.License = new OpenApiLicense { Name = "Proprietary", Identifier = "LicenseRef-QaService-Proprietary" };
         document.Info.Contact = new OpenApiContact { Name = "QaService operators (the team that runs this instance)" };
 
-        // The servers are taken from the request ("http://host:port/"); a trailing slash would double in client paths.
-        foreach (var server in document.Servers ?? [])
-            server.Url = server.Url?.TrimEnd('/') is { Length: > 0 } url ? url : server.Url;
+        // Relative to where the document was fetched (OpenAPI 3.1 §4.8.5): right behind any proxy or host name, whereas the
+        // framework's "http://host:port/" names the host as this request saw it (localhost in development).
+        document.Servers = [new OpenApiServer { Url = "/", Description = "The host that serves this document." }];
 
         foreach (var tag in document.Tags ?? new HashSet<OpenApiTag>())
         {
