@@ -30,7 +30,9 @@ public sealed record PointSet(string? Crs, IReadOnlyList<PointRecord?>? Points, 
 /// <summary>
 /// One point; which coordinate fields it must have depends on the kind of its set's CRS
 /// (geographic <c>lat</c>/<c>lon</c> in degrees, projected <c>e</c>/<c>n</c> in the CRS unit,
-/// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit).
+/// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit). Fixes may also carry attributes the report
+/// groups by (<c>featureClass</c>, <c>crew</c>, <c>receiver</c>) and what the receiver reported (<c>hdop</c>, <c>quality</c>;
+/// <c>sigmaH</c> on a fix is the receiver's reported per-axis 1σ horizontal precision).
 /// </summary>
 public sealed record PointRecord(
     string? Id = null,
@@ -45,7 +47,12 @@ public sealed record PointRecord(
     double? H = null,
     double? SigmaH = null,
     double? SigmaV = null,
-    DateTimeOffset? Time = null);
+    DateTimeOffset? Time = null,
+    string? FeatureClass = null,
+    string? Crew = null,
+    string? Receiver = null,
+    double? Hdop = null,
+    string? Quality = null);
 
 /// <summary>Required accuracy, in the measure of the selected standard (for <c>nssda</c>: 95 % confidence), metres.</summary>
 /// <param name="Standard">Accuracy standard: <c>nssda</c> (FGDC-STD-007.3-1998, default), <c>asprs-2023</c>, <c>nmas-1947</c>, <c>nga-ce90</c>.</param>
@@ -54,8 +61,14 @@ public sealed record PointRecord(
 /// <param name="Confidence">When given (e.g. 0.9), a figure passes only when its upper confidence bound meets the spec.</param>
 /// <param name="MapScale">Publication scale denominator for <c>nmas-1947</c>, e.g. 24000 for 1:24,000.</param>
 /// <param name="ContourInterval">Contour interval for <c>nmas-1947</c> vertical testing, metres.</param>
+/// <param name="FeatureClasses">Required accuracy per feature class (fix attribute <c>featureClass</c>), in the same measures as
+/// <paramref name="Horizontal"/>/<paramref name="Vertical"/>; each class's group in the report is judged against its own entry.</param>
 public sealed record AccuracySpec(string? Standard = null, double? Horizontal = null, double? Vertical = null,
-    double? Confidence = null, double? MapScale = null, double? ContourInterval = null);
+    double? Confidence = null, double? MapScale = null, double? ContourInterval = null,
+    IReadOnlyDictionary<string, FeatureClassSpec?>? FeatureClasses = null);
+
+/// <summary>Required accuracy of one feature class, metres, in the selected standard's measures (as spec.horizontal/vertical).</summary>
+public sealed record FeatureClassSpec(double? Horizontal = null, double? Vertical = null);
 
 /// <summary>Proximity pairing for fixes that name no mark.</summary>
 /// <param name="Radius">Largest horizontal distance from fix to mark, metres (default 5).</param>

@@ -39,18 +39,21 @@ public sealed record FramedPoint(
 
     // The rarely given fields live in one immutable side object, null when none is given: a point then costs
     // about 72 bytes instead of 128 (a 1,000,000-fix upload holds every fix through the assessment).
-    private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time);
+    private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, null);
 
-    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time); }
+    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time, Attributes); }
 
-    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time); }
+    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time, Attributes); }
 
-    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value); }
+    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value, Attributes); }
 
-    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time)
+    /// <summary>A fix's attributes and reported precision; null when it gives none (marks always).</summary>
+    public FixAttributes? Attributes { get => extras?.Attributes; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, value); }
+
+    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time, FixAttributes? Attributes)
     {
-        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time) =>
-            sigmaHorizontal is null && sigmaVertical is null && time is null ? null : new(sigmaHorizontal, sigmaVertical, time);
+        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time, FixAttributes? attributes) =>
+            sigmaHorizontal is null && sigmaVertical is null && time is null && attributes is null ? null : new(sigmaHorizontal, sigmaVertical, time, attributes);
     }
 }
 
@@ -59,8 +62,13 @@ public sealed record FramedPoint(
 /// <param name="Confidence">Confidence level the verdict is judged at; null to judge point estimates.</param>
 /// <param name="MapScaleDenominator">NMAS publication scale denominator.</param>
 /// <param name="ContourIntervalMetres">NMAS contour interval, metres.</param>
+/// <param name="FeatureClasses">spec.featureClasses: required accuracy per feature class, metres; null when none is given.</param>
 public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres,
-    double? Confidence = null, double? MapScaleDenominator = null, double? ContourIntervalMetres = null);
+    double? Confidence = null, double? MapScaleDenominator = null, double? ContourIntervalMetres = null,
+    IReadOnlyDictionary<string, ClassAccuracy>? FeatureClasses = null);
+
+/// <summary>Required accuracy of one feature class after validation, metres, in the standard's measures.</summary>
+public sealed record ClassAccuracy(double? HorizontalMetres, double? VerticalMetres);
 
 /// <summary>A request that passed validation: every point is in the marks' geodetic frame with ellipsoidal heights.</summary>
 /// <param name="FrameOperation">How the fixes were brought into the marks' frame (steps, accuracies, epoch); null when built directly in tests.</param>
