@@ -11,14 +11,18 @@ namespace QaService.Core.Assessment;
 /// Linear in the pairs: one pass assigns every row its group per attribute, a counting sort lays the rows out group by
 /// group, and each group's components are gathered once into arrays of its own size (the figures need them as arrays).
 /// </summary>
-internal static class AttributeGrouping
+public static class AttributeGrouping
 {
     public const string SpreadMethod =
         "Brown–Forsythe: Levene's test on absolute deviations from each group's median (Levene 1960; Brown & Forsythe 1974), F(k − 1, N − k)";
 
     public const string MeansMethod = "Welch's one-way test of equal means without equal variances (Welch 1951), F(k − 1, ν₂)";
 
-    public static IReadOnlyList<AttributeGroups>? Compute(ValidatedAssessment input, ResidualColumns columns)
+    /// <summary>The groups of any list of counted residuals (benchmarks, tests); the runner passes the columns it already has.</summary>
+    public static IReadOnlyList<AttributeGroups>? Compute(ValidatedAssessment input, IReadOnlyList<Residual> included) =>
+        Compute(input, ResidualColumns.Of(input.Marks, included));
+
+    internal static IReadOnlyList<AttributeGroups>? Compute(ValidatedAssessment input, ResidualColumns columns)
     {
         var rows = columns.Rows;
         var n = rows.Count;
