@@ -204,6 +204,26 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
         Assert.Equal(1.2, residual.GetProperty("hdop").GetDouble());
     }
 
+    [Fact]
+    public async Task Nmea_quality_hdop_and_gst_sigma_reach_the_residual()
+    {
+        // GST (NMEA 0183 v4.10): σ_lat 0.011 m, σ_lon 0.010 m → per-axis sigmaH √((0.011² + 0.010²)/2) = 0.0105119 m.
+        const string nmea = "$GNRMC,101500.00,A,5530.00000000,N,00315.00000000,W,0.0,0.0,020426,,,R*42\n" +
+                            "$GNGGA,101500.00,5530.00000000,N,00315.00000000,W,4,17,0.6,52.300,M,48.100,M,1.2,0012*73\n" +
+                            "$GNGSA,A,3,01,02,03,04,05,06,07,08,,,,,1.2,0.6,1.0*20\n" +
+                            "$GNGST,101500.00,0.010,0.012,0.009,45.0,0.011,0.010,0.018*7E\n";
+        const string marks = "id,lat,lon,h\nA,55.5000001,-3.2500001,100.40\n";
+        const string options = """{ "marks": { "crs": "EPSG:4979" }, "pairing": { "radius": 5 } }""";
+        var response = await client.PostFormAsync(Uploads.Form(options, marks, nmea));
+        var text = await response.Content.ReadAsStringAsync();
+        Assert.True(response.StatusCode == HttpStatusCode.Created, text);
+        var residual = JsonDocument.Parse(text).RootElement.GetProperty("residuals")[0];
+        Assert.Equal("rtk-fixed", residual.GetProperty("quality").GetString());
+        Assert.Equal(0.6, residual.GetProperty("hdop").GetDouble());
+        Assert.Equal(Math.Sqrt((0.011 * 0.011 + 0.010 * 0.010) / 2), residual.GetProperty("fixSigmaH").GetDouble(), 6);
+        Assert.False(residual.TryGetProperty("featureClass", out _));
+    }
+
     private Task<HttpResponseMessage> Screen(string body) =>
         client.PostAsync("/v1/screenings", new StringContent(body, Encoding.UTF8, "application/json"));
 
