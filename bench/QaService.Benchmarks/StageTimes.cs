@@ -75,6 +75,7 @@ internal static class StageTimes
         var context = new CheckContext(input, included, horizontal, vertical);
         var checks = DataChecks.All.Select(check => Time($"  check {check.Id}", () => check.Evaluate(context))).ToList();
         Time("  report blocks (standard, CI, ...)", () => ReportFigures.Compute(input, included, horizontal, vertical, checks));
+        Time("  groups (by fix attribute)", () => AttributeGrouping.Compute(input, included));
 
         Time("serialise JSON", () =>
         {

@@ -3,6 +3,11 @@ using System.Text;
 using QaService.Api.Assessments;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
+using QaService.Api.Reports;
+using QaService.Api.Security;
+using QaService.Api.Storage;
+using QaService.Core.Assessment;
+using QaService.Core.Reporting;
 using QaService.Core.Screening;
 
 namespace QaService.Api.Screening;
@@ -31,13 +36,40 @@ internal static class ScreeningApi
         return group;
     }
 
-    internal static async Task<IResult> ScreenAsync(HttpRequest request, JsonBodyReader<ScreeningRequest> reader, CancellationToken cancellationToken)
+    internal static async Task<IResult> ScreenAsync(HttpRequest request, JsonBodyReader<ScreeningRequest> reader, IReportStore store, ITenantContext tenant,
+        CancellationToken cancellationToken)
     {
         var (body, problem) = await reader.ReadAsync(request, cancellationToken);
         if (problem is not null)
             return problem;
-        var (report, errors) = FixScreening.Screen(body);
+        var (residuals, source, missing) = await CalibrationResidualsAsync(body?.Calibration, store, tenant.TenantId, cancellationToken);
+        if (missing.Count > 0)
+            return InputProblems.Invalid(missing);
+        var (report, errors) = FixScreening.Screen(body, residuals, source);
         return report is null ? InputProblems.Invalid(errors) : TypedResults.Ok(report);
+    }
+
+    /// <summary>
+    /// The residuals of the stored assessments <c>calibration.assessments</c> names, this tenant's only (another tenant's id is
+    /// "no such assessment", as on GET). Core computes the calibration from them; nothing here is maths.
+    /// </summary>
+    private static async Task<(List<Residual>? Residuals, string? Source, List<InputError> Missing)> CalibrationResidualsAsync(
+        ScreeningCalibrationInput? calibration, IReportStore store, string tenant, CancellationToken cancellationToken)
+    {
+        var missing = new List<InputError>();
+        if (calibration?.Assessments is not { Count: > 0 and <= FixScreening.MaximumCalibrationAssessments } ids || calibration.Entries is not null
+            || ids.Any(string.IsNullOrWhiteSpace))
+            return (null, null, missing);
+        var residuals = new List<Residual>();
+        for (var i = 0; i < ids.Count; i++)
+        {
+            var report = await StoredReports.LoadAsync(store, tenant, ids[i]!.Trim(), cancellationToken);
+            if (report is null)
+                missing.Add(new(string.Create(CultureInfo.InvariantCulture, $"/calibration/assessments/{i}"), $"no assessment \"{ids[i]}\""));
+            else
+                residuals.AddRange(report.Residuals);
+        }
+        return (residuals, "assessments " + string.Join(", ", ids.Select(id => id!.Trim())), missing);
     }
 
     /// <summary>The profiles, written out for the OpenAPI description from the same objects the rules use.</summary>
@@ -47,7 +79,9 @@ internal static class ScreeningApi
             "Rules: quality (profile's reject/flag lists), satellites (fewer than 4 cannot give a 3-D fix: always reject; profile minimum and flag level), " +
             "pdop/hdop/vdop (flag above the profile's maximum), horizontal-error and vertical-error (reported estimates: flag/reject above the profile's limits), " +
             "correction-age (flag/reject), elevation-mask (flag below the minimum: low satellites suffer more ionospheric delay), expected-error (autonomous fixes: " +
-            "2·HDOP·UERE(1σ), UERE(95 %) 15.7 m C/A budget, flagged above the horizontal flag limit; autonomous is typically 5–10 m). " +
+            "2·HDOP·UERE(1σ), UERE(95 %) 15.7 m C/A budget, flagged above the horizontal flag limit; autonomous is typically 5–10 m; with \"calibration\" " +
+            "(stored assessment ids, or entries), any fix naming its receiver: 2 · ratio · predicted radial σ, the ratio being that receiver's observed/reported RMS " +
+            "radial error on at least minimumPairs (default 20) assessed pairs, else the profile's rule, and each result says which). " +
             "Rules marked \"common practice\" have no standard behind their numbers. Every threshold can be overridden in \"thresholds\". Profiles:");
         foreach (var p in ScreeningProfiles.All)
         {

@@ -35,7 +35,9 @@ public sealed record PointSet(string? Crs, IReadOnlyList<PointRecord?>? Points, 
 /// One point; which coordinate fields it must have depends on the kind of its set's CRS
 /// (geographic <c>lat</c>/<c>lon</c> in degrees, projected <c>e</c>/<c>n</c> in the CRS unit,
 /// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit). A mark may carry its velocity
-/// <c>vE</c>/<c>vN</c>/<c>vU</c> (metres per year, east/north/up) to bring it to the fixes' epoch.
+/// <c>vE</c>/<c>vN</c>/<c>vU</c> (metres per year, east/north/up) to bring it to the fixes' epoch. Fixes may also carry attributes the report
+/// groups by (<c>featureClass</c>, <c>crew</c>, <c>receiver</c>) and what the receiver reported (<c>hdop</c>, <c>quality</c>;
+/// <c>sigmaH</c> on a fix is the receiver's reported per-axis 1σ horizontal precision).
 /// </summary>
 public sealed record PointRecord(
     string? Id = null,
@@ -51,6 +53,11 @@ public sealed record PointRecord(
     double? SigmaH = null,
     double? SigmaV = null,
     DateTimeOffset? Time = null,
+    string? FeatureClass = null,
+    string? Crew = null,
+    string? Receiver = null,
+    double? Hdop = null,
+    string? Quality = null,
     double? VE = null,
     double? VN = null,
     double? VU = null);
@@ -62,8 +69,14 @@ public sealed record PointRecord(
 /// <param name="Confidence">When given (e.g. 0.9), a figure passes only when its upper confidence bound meets the spec.</param>
 /// <param name="MapScale">Publication scale denominator for <c>nmas-1947</c>, e.g. 24000 for 1:24,000.</param>
 /// <param name="ContourInterval">Contour interval for <c>nmas-1947</c> vertical testing, metres.</param>
+/// <param name="FeatureClasses">Required accuracy per feature class (fix attribute <c>featureClass</c>), in the same measures as
+/// <paramref name="Horizontal"/>/<paramref name="Vertical"/>; each class's group in the report is judged against its own entry.</param>
 public sealed record AccuracySpec(string? Standard = null, double? Horizontal = null, double? Vertical = null,
-    double? Confidence = null, double? MapScale = null, double? ContourInterval = null);
+    double? Confidence = null, double? MapScale = null, double? ContourInterval = null,
+    IReadOnlyDictionary<string, FeatureClassSpec?>? FeatureClasses = null);
+
+/// <summary>Required accuracy of one feature class, metres, in the selected standard's measures (as spec.horizontal/vertical).</summary>
+public sealed record FeatureClassSpec(double? Horizontal = null, double? Vertical = null);
 
 /// <summary>Proximity pairing for fixes that name no mark.</summary>
 /// <param name="Radius">Largest horizontal distance from fix to mark, metres (default 5).</param>

@@ -41,6 +41,7 @@ public static class AssessmentRunner
         var figures = ReportFigures.Compute(input, columns, horizontal, vertical, checks);
         var (verdict, spec) = VerdictRule.Decide(input.Spec, horizontal, vertical, checks, figures.Standard);
         var minimumPoints = AccuracyStandards.MinimumPoints(input.Spec?.Standard);
+        var groups = AttributeGrouping.Compute(input, columns);
 
         return new AssessmentReport(
             id,
@@ -61,7 +62,8 @@ public static class AssessmentRunner
             figures.Approximations,
             figures.OffsetModel,
             figures.OutlierSensitivity,
-            pairing);
+            pairing,
+            Groups: groups);
     }
 
     /// <summary>

@@ -60,6 +60,7 @@ internal static class PointSetReading
         var isMark = markCheck is null;
         var useHeight = frame.Heights != HeightReference.None;
         var columns = points as IPointValueList;
+        FixAttributes? previous = null;
         for (var i = from; i < to; i++)
         {
             var pointPointer = new PointPointer(pointer, i);
@@ -75,6 +76,11 @@ internal static class PointSetReading
                 errors.Add(new($"{pointPointer}/mark", "mark must name a mark id, or be left out"));
             CheckSigma(point.SigmaH, pointPointer, "sigmaH", errors);
             CheckSigma(point.SigmaV, pointPointer, "sigmaV", errors);
+            var attributes = ReadAttributes(point, pointPointer, isMark, frame.Crs.Unit.MetresPerUnit, errors);
+            // Runs of fixes with the same attributes (one crew, one class) share one object.
+            if (attributes is not null && attributes == previous)
+                attributes = previous;
+            previous = attributes ?? previous;
             var geodetic = PointConversion.ToGeodetic(frame.Crs, point, pointPointer, useHeight, errors);
             if (geodetic is null || id is null)
                 continue;
@@ -84,7 +90,7 @@ internal static class PointSetReading
             result.Add(new FramedPoint(i, id, markId, geodetic.Value, hasHeight,
                 point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
                 point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
-                point.Time) { VelocityMetresPerYear = velocity });
+                point.Time) { VelocityMetresPerYear = velocity, Attributes = attributes });
             if (markId is { Length: > 0 } && markCheck is not null && !markCheck.Known.Contains(markId))
                 unknownMarks!.Add(new(Format($"{pointer}/points/{i}/mark"), $"no mark has the id \"{markId}\""));
         }
@@ -119,6 +125,52 @@ internal static class PointSetReading
         }
         return ok ? new EnuVector(record.VE!.Value, record.VN!.Value, record.VU ?? 0) : null;
     }
+
+    /// <summary>
+    /// A fix's attributes, validated: names non-blank and at most <see cref="FixAttributes.MaximumLength"/> characters,
+    /// HDOP in (0, 100] (receivers write 99.99 for "no solution"), quality one of the screening words. Marks carry none.
+    /// </summary>
+    private static FixAttributes? ReadAttributes(in PointValues point, PointPointer pointer, bool isMark, double metresPerUnit, List<InputError> errors)
+    {
+        var given = point.FeatureClass is not null || point.Crew is not null || point.Receiver is not null || point.Hdop is not null || point.Quality is not null;
+        if (isMark)
+        {
+            if (given)
+            {
+                var field = point.FeatureClass is not null ? "featureClass" : point.Crew is not null ? "crew" : point.Receiver is not null ? "receiver"
+                    : point.Hdop is not null ? "hdop" : "quality";
+                errors.Add(new($"{pointer}/{field}", $"{field} describes a fix; marks do not carry it"));
+            }
+            return null;
+        }
+        if (!given && point.SigmaH is null)
+            return null;
+        var featureClass = Name(point.FeatureClass, pointer, "featureClass", errors);
+        var crew = Name(point.Crew, pointer, "crew", errors);
+        var receiver = Name(point.Receiver, pointer, "receiver", errors);
+        if (point.Hdop is { } hdop && !(double.IsFinite(hdop) && hdop > 0 && hdop <= Screening.FixScreening.MaximumDop))
+            errors.Add(new($"{pointer}/hdop", Format($"hdop {hdop} is not a dilution of precision in (0, {Screening.FixScreening.MaximumDop}]")));
+        string? quality = null;
+        if (point.Quality is { } q && (quality = Screening.ScreeningQuality.Normalise(q)) is null)
+            errors.Add(new($"{pointer}/quality", $"quality \"{CsvShort(q)}\" is not one of {string.Join(", ", Screening.ScreeningQuality.All)}"));
+        return new FixAttributes(featureClass, crew, receiver, point.SigmaH is { } s ? s * metresPerUnit : null, point.Hdop, quality);
+    }
+
+    private static string? Name(string? text, PointPointer pointer, string field, List<InputError> errors)
+    {
+        if (text is null)
+            return null;
+        var trimmed = text.Trim();
+        if (trimmed.Length == 0)
+            errors.Add(new($"{pointer}/{field}", $"{field} must be a non-empty name, or be left out"));
+        else if (trimmed.Length > FixAttributes.MaximumLength)
+            errors.Add(new($"{pointer}/{field}", $"{field} is longer than {FixAttributes.MaximumLength} characters (a class, crew or receiver name)"));
+        else
+            return trimmed;
+        return null;
+    }
+
+    private static string CsvShort(string text) => text.Length <= 40 ? text : text[..40] + "…";
 
     private static bool TryCopy(PointRecord? record, out PointValues point)
     {

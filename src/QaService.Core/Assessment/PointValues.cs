@@ -18,10 +18,16 @@ public readonly record struct PointValues(
     double? H,
     double? SigmaH,
     double? SigmaV,
-    DateTimeOffset? Time)
+    DateTimeOffset? Time,
+    string? FeatureClass = null,
+    string? Crew = null,
+    string? Receiver = null,
+    double? Hdop = null,
+    string? Quality = null)
 {
     public static PointValues Of(PointRecord point) => new(point.Id, point.Mark, point.Lat, point.Lon, point.E, point.N,
-        point.X, point.Y, point.Z, point.H, point.SigmaH, point.SigmaV, point.Time);
+        point.X, point.Y, point.Z, point.H, point.SigmaH, point.SigmaV, point.Time, point.FeatureClass, point.Crew, point.Receiver,
+        point.Hdop, point.Quality);
 }
 
 /// <summary>A point list that hands out its points as <see cref="PointValues"/> without making a record for each.</summary>

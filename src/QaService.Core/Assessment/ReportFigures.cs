@@ -28,25 +28,38 @@ public static class ReportFigures
         var dU = vertical is null ? [] : columns.Up;
         double meanSquareE = SampleMoments.MeanSquareAboutZero(dE), meanSquareN = SampleMoments.MeanSquareAboutZero(dN);
 
-        var marks = columns.TestedMarks;
-        var spec = input.Spec;
+        var (standard, confidence) = Judge(input.Spec, input.MarksFrame.Crs.Unit, horizontal, vertical, columns.Radial, dU, columns.TestedMarks,
+            meanSquareE, meanSquareN, alwaysConfidence: true);
+
+        var approximations = CircularErrorApproximations.For(meanSquareE, meanSquareN, SampleMoments.MeanProductAboutZero(dE, dN), horizontal);
+        return new Blocks(standard, confidence, approximations, OffsetModelOrNull(dE, dN, dU), Sensitivity(columns, horizontal, vertical, checks));
+    }
+
+    /// <summary>
+    /// The selected standard's figures on one set of residuals and, when asked (or always, for the report's own block), the
+    /// confidence bounds: the one place the standard is applied, for the whole set and for each attribute group alike.
+    /// </summary>
+    /// <param name="radial">dH of the residuals, m.</param>
+    /// <param name="dU">dU of the residuals with heights (empty without a vertical comparison), m.</param>
+    /// <param name="marks">The tested marks (their declared sigmas enter ASPRS Ed.2).</param>
+    internal static (StandardResult Standard, ConfidenceSummary? Confidence) Judge(RequiredAccuracy? spec, Geodesy.Catalog.LinearUnit unit,
+        HorizontalAccuracy horizontal, VerticalAccuracy? vertical, double[] radial, ReadOnlySpan<double> dU, IReadOnlyList<FramedPoint> marks,
+        double meanSquareE, double meanSquareN, bool alwaysConfidence)
+    {
         var absoluteUp = new double[dU.Length];
         for (var i = 0; i < dU.Length; i++)
             absoluteUp[i] = Math.Abs(dU[i]);
-        var standardInput = new StandardInput(horizontal, vertical, columns.Radial, absoluteUp,
+        var standardInput = new StandardInput(horizontal, vertical, radial, absoluteUp,
             marks.Select(m => m.SigmaHorizontalMetres).ToArray(), marks.Select(m => m.SigmaVerticalMetres).ToArray(),
-            spec?.HorizontalMetres, spec?.VerticalMetres, spec?.MapScaleDenominator, spec?.ContourIntervalMetres,
-            input.MarksFrame.Crs.Unit);
+            spec?.HorizontalMetres, spec?.VerticalMetres, spec?.MapScaleDenominator, spec?.ContourIntervalMetres, unit);
         var standard = AccuracyStandards.Evaluate(spec?.Standard ?? AccuracyStandards.NssdaId, standardInput);
         ConfidenceSummary? confidence = null;
-        if (columns.Rows.Count >= 2)
+        if (radial.Length >= 2 && (alwaysConfidence || spec?.Confidence is not null))
         {
             (confidence, standard) = StandardConfidence.Apply(standard, standardInput, spec?.Confidence ?? StandardConfidence.DefaultLevel,
                 spec?.Confidence is not null, meanSquareE, meanSquareN);
         }
-
-        var approximations = CircularErrorApproximations.For(meanSquareE, meanSquareN, SampleMoments.MeanProductAboutZero(dE, dN), horizontal);
-        return new Blocks(standard, confidence, approximations, OffsetModelOrNull(dE, dN, dU), Sensitivity(columns, horizontal, vertical, checks));
+        return (standard, confidence);
     }
 
     /// <summary>

@@ -190,7 +190,46 @@ public static class RequestValidator
             errors.Add(new("/spec/contourInterval", Format($"contour interval {ci} must be a positive number of metres")));
         if (standard == AccuracyStandards.NmasId && spec.MapScale is null && spec.ContourInterval is null)
             errors.Add(new("/spec/mapScale", "nmas-1947 judges against the map: give \"mapScale\" (e.g. 24000) and/or \"contourInterval\" (metres)"));
-        return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical, spec.Confidence, spec.MapScale, spec.ContourInterval);
+        var classes = ReadFeatureClasses(spec.FeatureClasses, standard, errors);
+        return new RequiredAccuracy(standard, spec.Horizontal, spec.Vertical, spec.Confidence, spec.MapScale, spec.ContourInterval, classes);
+    }
+
+    /// <summary>
+    /// spec.featureClasses: each key a class name as fixes give it (non-blank, at most <see cref="FixAttributes.MaximumLength"/>
+    /// characters), each value at least one positive figure in the standard's own measures. NMAS judges against a map
+    /// scale, not figures, so it takes no per-class figures.
+    /// </summary>
+    private static Dictionary<string, ClassAccuracy>? ReadFeatureClasses(IReadOnlyDictionary<string, FeatureClassSpec?>? classes, string standard,
+        List<InputError> errors)
+    {
+        if (classes is null)
+            return null;
+        if (standard == AccuracyStandards.NmasId && classes.Count > 0)
+        {
+            errors.Add(new("/spec/featureClasses", "nmas-1947 judges against the map scale and contour interval, not per-class figures; use another standard for featureClasses"));
+            return null;
+        }
+        var result = new Dictionary<string, ClassAccuracy>(StringComparer.Ordinal);
+        foreach (var (name, figures) in classes)
+        {
+            var pointer = "/spec/featureClasses/" + name.Replace("~", "~0", StringComparison.Ordinal).Replace("/", "~1", StringComparison.Ordinal);
+            var key = name.Trim();
+            if (key.Length == 0 || key.Length > FixAttributes.MaximumLength)
+            {
+                errors.Add(new(pointer, Format($"a feature class name is 1 to {FixAttributes.MaximumLength} characters, as the fixes' featureClass gives it")));
+                continue;
+            }
+            if (figures is null || (figures.Horizontal is null && figures.Vertical is null))
+            {
+                errors.Add(new(pointer, "give the class's required \"horizontal\" and/or \"vertical\" accuracy, metres"));
+                continue;
+            }
+            CheckRequirement(figures.Horizontal, pointer + "/horizontal", errors);
+            CheckRequirement(figures.Vertical, pointer + "/vertical", errors);
+            if (!result.TryAdd(key, new ClassAccuracy(figures.Horizontal, figures.Vertical)))
+                errors.Add(new(pointer, $"feature class \"{key}\" is given twice (names are compared after trimming)"));
+        }
+        return result;
     }
 
     private static void CheckRequirement(double? metres, string pointer, List<InputError> errors)

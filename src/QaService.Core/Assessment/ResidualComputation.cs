@@ -27,6 +27,6 @@ public static class ResidualComputation
         var enu = markFrame.Difference(GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
         var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
         return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, hasVertical ? enu.UpMetres : null, horizontal,
-            pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees);
+            pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees) { Attributes = fix.Attributes };
     }
 }

@@ -46,21 +46,25 @@ public sealed record FramedPoint(
 
     // The rarely given fields live in one immutable side object, null when none is given: a point then costs
     // about 72 bytes instead of 128 (a 1,000,000-fix upload holds every fix through the assessment).
-    private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time);
+    private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, null, null);
 
-    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time, VelocityMetresPerYear); }
+    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time, VelocityMetresPerYear, Attributes); }
 
-    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time, VelocityMetresPerYear); }
+    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time, VelocityMetresPerYear, Attributes); }
 
-    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value, VelocityMetresPerYear); }
+    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value, VelocityMetresPerYear, Attributes); }
 
     /// <summary>A mark's own velocity (east, north, up; metres per year) when the request gives one.</summary>
-    public EnuVector? VelocityMetresPerYear { get => extras?.Velocity; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, value); }
+    public EnuVector? VelocityMetresPerYear { get => extras?.Velocity; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, value, Attributes); }
 
-    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time, EnuVector? Velocity = null)
+    /// <summary>A fix's attributes and reported precision; null when it gives none (marks always).</summary>
+    public FixAttributes? Attributes { get => extras?.Attributes; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, VelocityMetresPerYear, value); }
+
+    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time, EnuVector? Velocity, FixAttributes? Attributes)
     {
-        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time, EnuVector? velocity = null) =>
-            sigmaHorizontal is null && sigmaVertical is null && time is null && velocity is null ? null : new(sigmaHorizontal, sigmaVertical, time, velocity);
+        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes) =>
+            sigmaHorizontal is null && sigmaVertical is null && time is null && velocity is null && attributes is null
+                ? null : new(sigmaHorizontal, sigmaVertical, time, velocity, attributes);
     }
 }
 
@@ -69,8 +73,13 @@ public sealed record FramedPoint(
 /// <param name="Confidence">Confidence level the verdict is judged at; null to judge point estimates.</param>
 /// <param name="MapScaleDenominator">NMAS publication scale denominator.</param>
 /// <param name="ContourIntervalMetres">NMAS contour interval, metres.</param>
+/// <param name="FeatureClasses">spec.featureClasses: required accuracy per feature class, metres; null when none is given.</param>
 public sealed record RequiredAccuracy(string Standard, double? HorizontalMetres, double? VerticalMetres,
-    double? Confidence = null, double? MapScaleDenominator = null, double? ContourIntervalMetres = null);
+    double? Confidence = null, double? MapScaleDenominator = null, double? ContourIntervalMetres = null,
+    IReadOnlyDictionary<string, ClassAccuracy>? FeatureClasses = null);
+
+/// <summary>Required accuracy of one feature class after validation, metres, in the standard's measures.</summary>
+public sealed record ClassAccuracy(double? HorizontalMetres, double? VerticalMetres);
 
 /// <summary>A request that passed validation: every point is in the marks' geodetic frame with ellipsoidal heights.</summary>
 /// <param name="FrameOperation">How the fixes were brought into the marks' frame (steps, accuracies, epoch); null when built directly in tests.</param>

@@ -17,6 +17,7 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
     private readonly int idColumn = ColumnOf(index, ContractFields.Id);
     private readonly int markColumn = ColumnOf(index, ContractFields.Mark);
     private readonly int timeColumn = ColumnOf(index, ContractFields.Time);
+    private readonly int[] attributeColumns = ContractFields.Attributes.Select(field => ColumnOf(index, field)).ToArray();
 
     /// <summary>The number fields the file has (position in <see cref="PointColumns.NumberFieldNames"/>) and their columns, in that order.</summary>
     private readonly (int Field, int Column)[] numbersInFile = Enumerable.Range(0, PointColumns.NumberFieldNames.Count)
@@ -26,7 +27,7 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
 
     /// <summary>Columns that may hold a number (every mapped one but id, mark and time), probed for a decimal comma.</summary>
     private readonly int[] probedColumns = index
-        .Where(kv => kv.Key is not (ContractFields.Id or ContractFields.Mark or ContractFields.Time))
+        .Where(kv => !ContractFields.Texts.Contains(kv.Key))
         .Select(kv => kv.Value).ToArray();
 
     /// <summary>True when a number column of this record writes a number as <c>12,5</c>.</summary>
@@ -70,7 +71,9 @@ internal sealed class CsvRowReader(IReadOnlyDictionary<string, int> index, IRead
             }
         }
         if (problem is null)
-            sink.Point(line, Text(record, fields, idColumn), Text(record, fields, markColumn), numbers, time);
+            sink.Point(line, Text(record, fields, idColumn), Text(record, fields, markColumn), numbers, time,
+                new AttributeTexts(Text(record, fields, attributeColumns[0]), Text(record, fields, attributeColumns[1]),
+                    Text(record, fields, attributeColumns[2]), Text(record, fields, attributeColumns[3])));
         else
             sink.Problem(line, problem);
     }

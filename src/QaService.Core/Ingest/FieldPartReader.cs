@@ -41,7 +41,7 @@ public static class FieldPartReader
                     if (row.Problem is { } p)
                         sink.Problem(row.Row, p);
                     else
-                        points.Add(row.Row, row.Point!);
+                        points.Add(row.Row, ReceiverFields.Onto(row.Point!, row.Receiver));
                 }
             }
             if (factor != 1.0)
@@ -113,8 +113,9 @@ public static class FieldPartReader
     /// <summary>Points go to the part's column store; problems get the part's row pointer.</summary>
     private sealed class PartSink(string part, string segment, PointColumns points, List<InputError> problems) : IFieldRowSink
     {
-        public void Point(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
-            points.Add(row, id, mark, numbers, time);
+        public void Point(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time,
+            AttributeTexts attributes) =>
+            points.Add(row, id, mark, numbers, time, attributes);
 
         public void Problem(long row, FieldProblem problem)
         {

@@ -169,6 +169,9 @@ public sealed class GeoJsonFieldReader(PositionAxes axes)
         var sigmaV = Number(properties, "sigmaV");
         if (sigmaH is { Problem: { } sp } || sigmaV is { Problem: { } })
             return FieldRow.Bad(index, sigmaH.Problem is not null ? ContractFields.SigmaH : ContractFields.SigmaV, sigmaH.Problem ?? sigmaV.Problem!);
+        var hdop = Number(properties, ContractFields.Hdop);
+        if (hdop.Problem is not null)
+            return FieldRow.Bad(index, ContractFields.Hdop, $"properties.hdop must be a number (a dilution of precision)");
 
         double? third = position.Count == 3 ? position[2] : null;
         var point = axes switch
@@ -177,7 +180,12 @@ public sealed class GeoJsonFieldReader(PositionAxes axes)
             PositionAxes.EastNorthH => new PointRecord(Id: id, Mark: mark, E: position[0], N: position[1], H: third),
             _ => new PointRecord(Id: id, Mark: mark, X: position[0], Y: position[1], Z: third),
         };
-        return new FieldRow(index, point with { Time = time, SigmaH = sigmaH.Value, SigmaV = sigmaV.Value });
+        return new FieldRow(index, point with
+        {
+            Time = time, SigmaH = sigmaH.Value, SigmaV = sigmaV.Value, Hdop = hdop.Value,
+            FeatureClass = Text(properties, ContractFields.FeatureClass), Crew = Text(properties, ContractFields.Crew),
+            Receiver = Text(properties, ContractFields.Receiver), Quality = Text(properties, ContractFields.Quality),
+        });
     }
 
     private static string? Text(JsonElement properties, string name) =>

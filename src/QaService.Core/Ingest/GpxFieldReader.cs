@@ -92,7 +92,7 @@ public sealed class GpxFieldReader
         var latitude = Angle(lat, ContractFields.Lat);
         var longitude = Angle(lon, ContractFields.Lon);
 
-        string? name = null, fix = null;
+        string? name = null, fix = null, featureClass = null, receiverName = null;
         double? ele = null, hdop = null, vdop = null, pdop = null, age = null;
         int? sat = null;
         DateTimeOffset? time = null;
@@ -115,6 +115,10 @@ public sealed class GpxFieldReader
                 switch (child)
                 {
                     case "name": name = value.Trim(); break;
+                    // GPX 1.1 wptType: <type> "type (classification) of the waypoint" is the feature class; <src> "source of
+                    // data ... e.g. 'Garmin eTrex'" is the receiver. GPX has no element for a crew (<desc> is free text).
+                    case "type": featureClass = value.Trim(); break;
+                    case "src": receiverName = value.Trim(); break;
                     case "fix": fix = value.Trim(); break;
                     case "ele": ele = Number(value, "ele", ContractFields.H, ref problem); break;
                     case "hdop": hdop = Number(value, "hdop", null, ref problem); break;
@@ -137,7 +141,8 @@ public sealed class GpxFieldReader
         var receiver = fix is null && sat is null && hdop is null && vdop is null && pdop is null && age is null
             ? null
             : new ReceiverReport(Quality(fix), sat, pdop, hdop, vdop, CorrectionAgeSeconds: age, RawQualityCode: fix);
-        return new FieldRow(line, new PointRecord(Id: string.IsNullOrEmpty(name) ? null : name, Lat: latitude, Lon: longitude, H: ele, Time: time), receiver);
+        return new FieldRow(line, new PointRecord(Id: string.IsNullOrEmpty(name) ? null : name, Lat: latitude, Lon: longitude, H: ele, Time: time,
+            FeatureClass: string.IsNullOrEmpty(featureClass) ? null : featureClass, Receiver: string.IsNullOrEmpty(receiverName) ? null : receiverName), receiver);
     }
 
     /// <summary>GPX 1.1 <c>fixType</c>: none, 2d, 3d, dgps, pps.</summary>

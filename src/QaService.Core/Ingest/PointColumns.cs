@@ -19,7 +19,14 @@ public sealed class PointColumns : IPointValueList
     // A column exists only once some point gives that field (a lat/lon/h file holds 3 of the 10), so absent fields cost nothing.
     private readonly ChunkedColumn<double>?[] numbers = new ChunkedColumn<double>?[NumberFields];
     private ChunkedColumn<long>? timeTicks;
-    internal const int NumberFields = 10;
+    // Text attributes (featureClass, crew, receiver, quality), each a column only once some point gives it; values repeat, so one string per distinct value.
+    private readonly ChunkedColumn<string?>?[] texts = new ChunkedColumn<string?>?[TextFields];
+    private readonly Dictionary<string, string> textValues = new(StringComparer.Ordinal);
+    internal const int NumberFields = 11;
+    private const int TextFields = 4;
+
+    /// <summary>Number fields holding a length (e, n, x, y, z, h, sigmaH, sigmaV), scaled by a file's length unit; hdop is not one.</summary>
+    private const int FirstLengthField = 2, EndLengthFields = 10;
 
     public int Count => rows.Count;
 
@@ -30,22 +37,30 @@ public sealed class PointColumns : IPointValueList
     internal static IReadOnlyList<string> NumberFieldNames { get; } =
     [
         ContractFields.Lat, ContractFields.Lon, ContractFields.E, ContractFields.N, ContractFields.X,
-        ContractFields.Y, ContractFields.Z, ContractFields.H, ContractFields.SigmaH, ContractFields.SigmaV,
+        ContractFields.Y, ContractFields.Z, ContractFields.H, ContractFields.SigmaH, ContractFields.SigmaV, ContractFields.Hdop,
     ];
 
     public void Add(long row, PointRecord point) =>
         Append(row, point.Id, point.Mark is null ? null : Shared(point.Mark),
             [Given(point.Lat), Given(point.Lon), Given(point.E), Given(point.N), Given(point.X),
-             Given(point.Y), Given(point.Z), Given(point.H), Given(point.SigmaH), Given(point.SigmaV)],
-            point.Time?.UtcTicks);
+             Given(point.Y), Given(point.Z), Given(point.H), Given(point.SigmaH), Given(point.SigmaV), Given(point.Hdop)],
+            point.Time?.UtcTicks, new AttributeTexts(point.FeatureClass, point.Crew, point.Receiver, point.Quality));
 
     /// <summary>A point read in place (CSV): empty text means not given; the mark is kept as one shared string per distinct id.</summary>
     /// <param name="numbers">The <see cref="NumberFieldNames"/> fields in order, NaN where not given (readers accept finite numbers only).</param>
-    internal void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time) =>
-        Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks);
+    internal void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time, AttributeTexts attributes) =>
+        Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks, attributes);
 
-    private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks)
+    private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks, AttributeTexts attributes)
     {
+        for (var field = 0; field < TextFields; field++)
+        {
+            var text = attributes[field];
+            if (!text.IsEmpty)
+                (texts[field] ??= ChunkedColumn<string?>.Filled(rows.Count, null)).Add(SharedText(text));
+            else
+                texts[field]?.Add(null);
+        }
         var index = rows.Count;
         rows.Add(row);
         ids.Add(id);
@@ -73,7 +88,7 @@ public sealed class PointColumns : IPointValueList
     public void ScaleLengths(double factor)
     {
         // e, n, x, y, z, h, sigmaH, sigmaV: every field but lat/lon holds a length.
-        for (var field = 2; field < NumberFields; field++)
+        for (var field = FirstLengthField; field < EndLengthFields; field++)
         {
             if (numbers[field] is not { } column)
                 continue;
@@ -87,7 +102,8 @@ public sealed class PointColumns : IPointValueList
         get
         {
             TryGetValues(index, out var p);
-            return new PointRecord(p.Id, p.Mark, p.Lat, p.Lon, p.E, p.N, p.X, p.Y, p.Z, p.H, p.SigmaH, p.SigmaV, p.Time);
+            return new PointRecord(p.Id, p.Mark, p.Lat, p.Lon, p.E, p.N, p.X, p.Y, p.Z, p.H, p.SigmaH, p.SigmaV, p.Time,
+                p.FeatureClass, p.Crew, p.Receiver, p.Hdop, p.Quality);
         }
     }
 
@@ -97,7 +113,8 @@ public sealed class PointColumns : IPointValueList
         var ticks = timeTicks?[index] ?? NoTime;
         point = new PointValues(ids[index], marks[index], At(0, index), At(1, index), At(2, index), At(3, index), At(4, index),
             At(5, index), At(6, index), At(7, index), At(8, index), At(9, index),
-            ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero));
+            ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero),
+            texts[0]?[index], texts[1]?[index], texts[2]?[index], At(10, index), texts[3]?[index]);
         return true;
     }
 
@@ -122,6 +139,18 @@ public sealed class PointColumns : IPointValueList
     }
 
     System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
+
+    /// <summary>Attribute values repeat across fixes (a handful of classes, crews, receivers): one string per distinct value.</summary>
+    private string SharedText(ReadOnlySpan<char> text)
+    {
+        var byText = textValues.GetAlternateLookup<ReadOnlySpan<char>>();
+        if (!byText.TryGetValue(text, out var value))
+        {
+            value = text.ToString();
+            textValues[value] = value;
+        }
+        return value;
+    }
 
     /// <summary>Mark ids repeat across fixes: keep one string per distinct id.</summary>
     private string Shared(string mark)

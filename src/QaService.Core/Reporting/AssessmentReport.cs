@@ -26,6 +26,7 @@ namespace QaService.Core.Reporting;
 /// <param name="OutlierSensitivity">Figures with and without the fixes the outlier check flags (never dropped silently).</param>
 /// <param name="Pairing">Ambiguous proximity pairings and repeat occupations (precision per mark); null when neither occurred.</param>
 /// <param name="Ingest">How uploaded files were read; null for JSON requests.</param>
+/// <param name="Groups">Figures per value of each fix attribute present (featureClass, crew, receiver); left out of the JSON when no fix gives one.</param>
 public sealed record AssessmentReport(
     string Id,
     string? Title,
@@ -46,7 +47,9 @@ public sealed record AssessmentReport(
     OffsetRadii? OffsetModel = null,
     OutlierSensitivity? OutlierSensitivity = null,
     PairingSummary? Pairing = null,
-    IngestSummary? Ingest = null);
+    IngestSummary? Ingest = null,
+    [property: System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)]
+    IReadOnlyList<AttributeGroups>? Groups = null);
 
 /// <summary>
 /// The headline figures with and without the residuals the outlier check flags, so a blunder's weight is visible and

@@ -25,4 +25,33 @@ public sealed record Residual(
     string PairedBy,
     string? Excluded,
     double MarkLatitude,
-    double MarkLongitude);
+    double MarkLongitude)
+{
+    /// <summary>The fix's attributes and reported precision, shared with the fix; null when it gave none (then none is written).</summary>
+    [JsonIgnore]
+    public Assessment.FixAttributes? Attributes { get; init; }
+
+    /// <summary>The fix's feature class; written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public string? FeatureClass => Attributes?.FeatureClass;
+
+    /// <summary>The crew that took the fix; written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public string? Crew => Attributes?.Crew;
+
+    /// <summary>The receiver that took the fix; written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public string? Receiver => Attributes?.Receiver;
+
+    /// <summary>Receiver-reported per-axis 1σ horizontal precision of the fix, metres; written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public double? FixSigmaH => Attributes?.SigmaHorizontalMetres;
+
+    /// <summary>HDOP reported with the fix; written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public double? Hdop => Attributes?.Hdop;
+
+    /// <summary>Solution kind of the fix (screening words); written only when given.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public string? Quality => Attributes?.Quality;
+}

@@ -14,17 +14,23 @@ internal static class ResidualJsonBytes
     private static readonly byte[] MarkPrefix = "{\"mark\":"u8.ToArray(), FixPrefix = ",\"fix\":"u8.ToArray(),
         DEPrefix = ",\"dE\":"u8.ToArray(), DNPrefix = ",\"dN\":"u8.ToArray(), DUPrefix = ",\"dU\":"u8.ToArray(),
         DHPrefix = ",\"dH\":"u8.ToArray(), PairedByPrefix = ",\"pairedBy\":"u8.ToArray(), ExcludedPrefix = ",\"excluded\":"u8.ToArray(),
-        LatitudePrefix = ",\"markLatitude\":"u8.ToArray(), LongitudePrefix = ",\"markLongitude\":"u8.ToArray(), Null = "null"u8.ToArray();
+        LatitudePrefix = ",\"markLatitude\":"u8.ToArray(), LongitudePrefix = ",\"markLongitude\":"u8.ToArray(), Null = "null"u8.ToArray(),
+        FeatureClassPrefix = ",\"featureClass\":"u8.ToArray(), CrewPrefix = ",\"crew\":"u8.ToArray(), ReceiverPrefix = ",\"receiver\":"u8.ToArray(),
+        FixSigmaHPrefix = ",\"fixSigmaH\":"u8.ToArray(), HdopPrefix = ",\"hdop\":"u8.ToArray(), QualityPrefix = ",\"quality\":"u8.ToArray();
+
+    /// <summary>Decimals written for a reported HDOP (receivers give one or two).</summary>
+    public const int HdopDecimals = 3;
 
     /// <summary>Fixed bytes of one object besides its strings: names, punctuation and six numbers at their longest.</summary>
-    private const int FixedPartBytes = 160 + 6 * FixedDecimalUtf8.MaximumBytes;
+    private const int FixedPartBytes = 260 + 8 * FixedDecimalUtf8.MaximumBytes;
 
     /// <summary>Most bytes one character can become (<c>\uXXXX</c>, or a surrogate pair's 12 bytes for 2 chars).</summary>
     private const int MaximumBytesPerChar = 6;
 
     /// <summary>An upper bound of the bytes <see cref="Write"/> needs for <paramref name="residual"/>.</summary>
     public static int MaximumLength(Residual residual) =>
-        FixedPartBytes + MaximumBytesPerChar * (residual.Mark.Length + residual.Fix.Length + residual.PairedBy.Length + (residual.Excluded?.Length ?? 0) + 8);
+        FixedPartBytes + MaximumBytesPerChar * (residual.Mark.Length + residual.Fix.Length + residual.PairedBy.Length + (residual.Excluded?.Length ?? 0) + 8
+            + (residual.Attributes is { } a ? (a.FeatureClass?.Length ?? 0) + (a.Crew?.Length ?? 0) + (a.Receiver?.Length ?? 0) + (a.Quality?.Length ?? 0) : 0));
 
     /// <summary>Writes one residual object; the destination holds at least <see cref="MaximumLength"/> bytes. Returns bytes written.</summary>
     public static int Write(Residual residual, Span<byte> destination, ref EncodedStringCache cache)
@@ -56,8 +62,34 @@ internal static class ResidualJsonBytes
         AppendNumber(residual.MarkLatitude, ResidualJsonConverter.DegreeDecimals, destination, ref at);
         Append(LongitudePrefix, destination, ref at);
         AppendNumber(residual.MarkLongitude, ResidualJsonConverter.DegreeDecimals, destination, ref at);
+        // The fix's attributes, each only when given: a report without them keeps the bytes it always had.
+        if (residual.Attributes is { } attributes)
+        {
+            OptionalString(FeatureClassPrefix, attributes.FeatureClass, destination, ref at, ref cache);
+            OptionalString(CrewPrefix, attributes.Crew, destination, ref at, ref cache);
+            OptionalString(ReceiverPrefix, attributes.Receiver, destination, ref at, ref cache);
+            if (attributes.SigmaHorizontalMetres is { } sigma)
+            {
+                Append(FixSigmaHPrefix, destination, ref at);
+                AppendNumber(sigma, ResidualJsonConverter.ComponentDecimals, destination, ref at);
+            }
+            if (attributes.Hdop is { } hdop)
+            {
+                Append(HdopPrefix, destination, ref at);
+                AppendNumber(hdop, HdopDecimals, destination, ref at);
+            }
+            OptionalString(QualityPrefix, attributes.Quality, destination, ref at, ref cache);
+        }
         destination[at++] = (byte)'}';
         return at;
+    }
+
+    private static void OptionalString(ReadOnlySpan<byte> prefix, string? text, Span<byte> destination, ref int at, ref EncodedStringCache cache)
+    {
+        if (text is null)
+            return;
+        Append(prefix, destination, ref at);
+        AppendString(text, destination, ref at, ref cache);
     }
 
     private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at)

@@ -39,7 +39,8 @@ public sealed class ResidualJsonConverter : JsonConverter<Residual>
     {
         if (reader.TokenType != JsonTokenType.StartObject)
             throw new JsonException("a residual is a JSON object");
-        string? mark = null, fix = null, pairedBy = null, excluded = null;
+        string? mark = null, fix = null, pairedBy = null, excluded = null, featureClass = null, crew = null, receiver = null, quality = null;
+        double? sigma = null, hdop = null;
         double dE = 0, dN = 0, dH = 0, latitude = 0, longitude = 0;
         double? dU = null;
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
@@ -58,12 +59,23 @@ public sealed class ResidualJsonConverter : JsonConverter<Residual>
                 case "excluded": excluded = reader.TokenType == JsonTokenType.Null ? null : reader.GetString(); break;
                 case "markLatitude": latitude = reader.GetDouble(); break;
                 case "markLongitude": longitude = reader.GetDouble(); break;
+                case "featureClass": featureClass = reader.GetString(); break;
+                case "crew": crew = reader.GetString(); break;
+                case "receiver": receiver = reader.GetString(); break;
+                case "fixSigmaH": sigma = reader.GetDouble(); break;
+                case "hdop": hdop = reader.GetDouble(); break;
+                case "quality": quality = reader.GetString(); break;
                 default: reader.Skip(); break; // a field from another build: reports stay readable
             }
         }
         if (reader.TokenType != JsonTokenType.EndObject)
             throw new JsonException("a residual object is not closed");
         return new Residual(mark ?? throw new JsonException("a residual has no mark"), fix ?? throw new JsonException("a residual has no fix"),
-            dE, dN, dU, dH, pairedBy ?? "id", excluded, latitude, longitude);
+            dE, dN, dU, dH, pairedBy ?? "id", excluded, latitude, longitude)
+        {
+            Attributes = featureClass is null && crew is null && receiver is null && sigma is null && hdop is null && quality is null
+                ? null
+                : new Assessment.FixAttributes(featureClass, crew, receiver, sigma, hdop, quality),
+        };
     }
 }

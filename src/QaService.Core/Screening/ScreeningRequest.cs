@@ -4,7 +4,19 @@ namespace QaService.Core.Screening;
 /// <param name="Profile">Profile name (see <see cref="ScreeningProfiles"/>); default <c>asset-inventory-sbas</c>.</param>
 /// <param name="Thresholds">Values that override the profile's for this request.</param>
 /// <param name="Fixes">The fixes with their receiver metadata.</param>
-public sealed record ScreeningRequest(string? Profile = null, ScreeningThresholds? Thresholds = null, IReadOnlyList<ScreeningFix?>? Fixes = null);
+/// <param name="Calibration">Learned ratios of observed to reported error per receiver, for the expected-error rule.</param>
+public sealed record ScreeningRequest(string? Profile = null, ScreeningThresholds? Thresholds = null, IReadOnlyList<ScreeningFix?>? Fixes = null,
+    ScreeningCalibrationInput? Calibration = null);
+
+/// <summary>
+/// Where the expected-error rule's calibration comes from: stored assessments (their residuals' receivers, reported σ/HDOP and
+/// observed errors) or entries given inline (e.g. from an earlier screening's <c>calibration</c> block). One of the two.
+/// </summary>
+/// <param name="Assessments">Ids of stored assessments of this tenant whose counted pairs calibrate the receivers.</param>
+/// <param name="Entries">Calibration entries given directly.</param>
+/// <param name="MinimumPairs">Fewest pairs an entry needs to be used (default 20); below it the profile's rule applies.</param>
+public sealed record ScreeningCalibrationInput(IReadOnlyList<string?>? Assessments = null, IReadOnlyList<CalibrationEntry?>? Entries = null,
+    int? MinimumPairs = null);
 
 /// <summary>One fix and what the receiver said about it. Every field is optional; a rule whose input is missing is listed as not checked.</summary>
 /// <param name="Id">The app's id for the fix.</param>
@@ -18,6 +30,7 @@ public sealed record ScreeningRequest(string? Profile = null, ScreeningThreshold
 /// <param name="CorrectionAge">Age of differential/RTK corrections, seconds.</param>
 /// <param name="ElevationMask">Receiver's satellite elevation mask, degrees above the horizon.</param>
 /// <param name="Time">Time of the fix (echoed).</param>
+/// <param name="Receiver">Receiver that took the fix (as the assessments name it): selects its calibration.</param>
 public sealed record ScreeningFix(
     string? Id = null,
     string? Quality = null,
@@ -29,7 +42,8 @@ public sealed record ScreeningFix(
     double? VerticalError = null,
     double? CorrectionAge = null,
     double? ElevationMask = null,
-    DateTimeOffset? Time = null);
+    DateTimeOffset? Time = null,
+    string? Receiver = null);
 
 /// <summary>
 /// Thresholds of a profile; in a request, any given value overrides the profile's. Errors in metres,

@@ -28,7 +28,12 @@ public sealed record ScreeningReason(string Rule, ScreeningDecision Decision, st
 /// <param name="Reasons">Every rule that fired.</param>
 /// <param name="ExpectedHorizontalError">Autonomous fixes: expected 2DRMS horizontal error from HDOP and the UERE budget, metres.</param>
 /// <param name="NotChecked">Rules that could not run because the fix lacks their input.</param>
-public sealed record ScreeningResult(int Index, string? Id, ScreeningDecision Decision, IReadOnlyList<ScreeningReason> Reasons, double? ExpectedHorizontalError, IReadOnlyList<string> NotChecked);
+/// <param name="Calibration">With a calibration: which entry the expected error used (receiver, fix type, ratio, pairs), or why the profile's rule was used instead.</param>
+public sealed record ScreeningResult(int Index, string? Id, ScreeningDecision Decision, IReadOnlyList<ScreeningReason> Reasons, double? ExpectedHorizontalError,
+    IReadOnlyList<string> NotChecked,
+    [property: JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)] string? Calibration = null);
 
 /// <summary>The response: the profile used (after overrides), counts and a result per fix in request order.</summary>
-public sealed record ScreeningReport(string Profile, ScreeningThresholds Thresholds, int Accepted, int Flagged, int Rejected, IReadOnlyList<ScreeningResult> Results);
+/// <param name="Calibration">The calibration the expected-error rule used; left out without one.</param>
+public sealed record ScreeningReport(string Profile, ScreeningThresholds Thresholds, int Accepted, int Flagged, int Rejected, IReadOnlyList<ScreeningResult> Results,
+    [property: JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)] ReceiverCalibration? Calibration = null);

@@ -23,7 +23,7 @@ public static class ScreeningRules
     /// <summary>Two-sided 95 % quantile of the standard normal distribution.</summary>
     public const double NormalQuantile95 = 1.959964;
 
-    public static ScreeningResult Evaluate(int index, ScreeningFix fix, ScreeningThresholds t)
+    public static ScreeningResult Evaluate(int index, ScreeningFix fix, ScreeningThresholds t, ReceiverCalibration? calibration = null)
     {
         var reasons = new List<ScreeningReason>();
         var notChecked = new List<string>();
@@ -50,18 +50,59 @@ public static class ScreeningRules
                 InvariantText.Format($"elevation mask {mask:0.#}° is below {minMask:0.#}°: satellites near the horizon add ionospheric, tropospheric and multipath delay"),
                 mask, minMask, "deg", CommonPractice));
 
-        double? expected = null;
-        if (quality == ScreeningQuality.Names.Autonomous && fix.Hdop is { } hdop && t.Uere95 is { } uere)
+        var (expected, note) = CalibratedExpectedError(fix, quality, t, calibration, reasons);
+        if (expected is null && quality == ScreeningQuality.Names.Autonomous && fix.Hdop is { } hdop && t.Uere95 is { } uere)
         {
             expected = ExpectedTwoDrmsMetres(hdop, uere);
             if (t.FlagHorizontalError is { } limit && expected > limit)
                 reasons.Add(new("expected-error", ScreeningDecision.Flag,
-                    InvariantText.Format($"autonomous fix: expected horizontal error 2·HDOP·UERE = {expected:0.0} m exceeds {limit:0.###} m (autonomous fixes are typically 5–10 m)"),
+                    InvariantText.Format($"autonomous fix: expected horizontal error 2·HDOP·UERE = {expected:0.0} m exceeds {limit:0.###} m (autonomous fixes are typically 5–10 m)") +
+                    (note is null ? "" : "; " + note),
                     expected, limit, "m", "2DRMS ≈ 2·HDOP·UERE(1σ), UERE budget GPS User Equipment Introduction Table 3-1; 5–10 m typical: common practice"));
         }
 
         var decision = reasons.Count == 0 ? ScreeningDecision.Accept : reasons.Max(r => r.Decision);
-        return new ScreeningResult(index, fix.Id, decision, reasons, expected, notChecked);
+        return new ScreeningResult(index, fix.Id, decision, reasons, expected, notChecked, note);
+    }
+
+    /// <summary>
+    /// The expected-error rule with a calibration: expected 2DRMS = 2 · ratio · σ_pred, where σ_pred is the fix's predicted radial σ
+    /// on the entry's basis (√2 · reported horizontal error taken as the per-axis σ the assessments' fixes gave as sigmaH, or
+    /// HDOP · UERE(1σ)) and ratio the receiver's observed/predicted RMS radial error (<see cref="ReceiverCalibration"/>). 2DRMS as in
+    /// the profile's rule (2DRMS ≈ 2·σ_radial). Returns no expected error, and says why, when no entry has enough pairs: the
+    /// profile's rule then applies.
+    /// </summary>
+    private static (double? Expected, string? Note) CalibratedExpectedError(ScreeningFix fix, string? quality, ScreeningThresholds t,
+        ReceiverCalibration? calibration, List<ScreeningReason> reasons)
+    {
+        if (calibration is null)
+            return (null, null);
+        if (fix.Receiver is not { } receiver)
+            return (null, "the fix names no receiver, so the calibration does not apply; the profile's expected-error rule was used");
+        var (basis, predicted) = fix.HorizontalError is { } reported
+            ? (ReceiverCalibration.SigmaBasis, Math.Sqrt(2) * reported)
+            : fix.Hdop is { } hdop ? (ReceiverCalibration.HdopBasis, hdop * calibration.Uere95Metres / NormalQuantile95) : (null, 0.0);
+        if (basis is null)
+            return (null, $"receiver \"{receiver}\": the fix reports neither a horizontal error nor an HDOP to scale; the profile's expected-error rule was used");
+        var entry = calibration.Find(receiver, quality, basis, out var tooFew);
+        var type = quality is null ? "" : $" ({quality})";
+        if (entry is null)
+        {
+            return (null, tooFew is null
+                ? $"no calibration for receiver \"{receiver}\"{type} on its {basis}; the profile's expected-error rule was used"
+                : InvariantText.Format($"the calibration of receiver \"{receiver}\"{(tooFew.Quality is null ? "" : $" ({tooFew.Quality})")} rests on {tooFew.Pairs} pairs, fewer than the {calibration.MinimumPairs} required; the profile's expected-error rule was used"));
+        }
+        var expected = 2 * entry.Ratio * predicted;
+        var scope = entry.Quality is null ? "all fix types" : entry.Quality;
+        var note = InvariantText.Format($"calibration of receiver \"{receiver}\" ({scope}, {basis}): observed/predicted {entry.Ratio:0.###} on {entry.Pairs} pairs ({calibration.Source})");
+        if (t.FlagHorizontalError is { } limit && expected > limit)
+        {
+            reasons.Add(new("expected-error", ScreeningDecision.Flag,
+                InvariantText.Format($"calibrated expected horizontal error 2 · {entry.Ratio:0.###} · {predicted:0.###} m = {expected:0.###} m exceeds {limit:0.###} m; uses the {note}"),
+                expected, limit, "m",
+                InvariantText.Format($"receiver calibration on {entry.Pairs} assessed pairs: {ReceiverCalibration.Method}; 2DRMS ≈ 2·σ_radial")));
+        }
+        return (expected, note);
     }
 
     private static void Quality(string quality, ScreeningThresholds t, List<ScreeningReason> reasons)

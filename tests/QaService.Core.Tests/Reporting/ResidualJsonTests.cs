@@ -104,6 +104,27 @@ public sealed class ResidualJsonTests
         Assert.Contains($",\"excluded\":{expected},", json);
     }
 
+    [Theory]
+    [InlineData("valve")]
+    [InlineData("<b>hydrant</b> & 'co'")]
+    [InlineData("Crew \"Nord\" ümlaut 北")]
+    public void Attributes_follow_the_mark_position_only_when_given_and_read_back(string text)
+    {
+        // Reference: System.Text.Json writing each bare string with the same options (default encoder).
+        var encoded = JsonSerializer.Serialize(text, ReportJson.Write);
+        var plain = new Residual("M1", "F1", 0.01, 0.02, null, 0.022361, "id", null, 48.1, 15.2);
+        var withAll = plain with { Attributes = new QaService.Core.Assessment.FixAttributes(text, text, text, 0.0123456789, 1.25, "rtk-fixed") };
+        var json = JsonSerializer.Serialize(withAll, ReportJson.Write);
+        Assert.Equal(JsonSerializer.Serialize(plain, ReportJson.Write)[..^1] +
+            $",\"featureClass\":{encoded},\"crew\":{encoded},\"receiver\":{encoded},\"fixSigmaH\":0.012346,\"hdop\":1.25,\"quality\":\"rtk-fixed\"}}", json);
+        var back = JsonSerializer.Deserialize<Residual>(json, ReportJson.Write)!;
+        Assert.Equal(withAll.Attributes! with { SigmaHorizontalMetres = 0.012346 }, back.Attributes);
+
+        var onlyCrew = plain with { Attributes = new QaService.Core.Assessment.FixAttributes(null, text, null, null, null, null) };
+        Assert.EndsWith($",\"markLongitude\":15.2,\"crew\":{encoded}}}", JsonSerializer.Serialize(onlyCrew, ReportJson.Write));
+        Assert.Null(JsonSerializer.Deserialize<Residual>(JsonSerializer.Serialize(plain, ReportJson.Write), ReportJson.Write)!.Attributes);
+    }
+
     [Fact]
     public void Reports_stored_with_full_precision_and_unknown_fields_still_read()
     {
@@ -133,6 +154,9 @@ public sealed class ReportJsonStreamTests
         // Each character the default encoder escapes, alone in an otherwise plain id.
         var alone = "\"\\&'<>+`\u007f\u0080é\u001f".Select((c, i) => new Residual($"M{c}", $"F-{i}{c}x", 0.001 * i, 0, null, 0.001 * i, "id", null, 48, 15));
         report = report with { Residuals = [.. report.Residuals, .. alone] };
+        // Attributes, hostile ones too, on some residuals.
+        var attributed = new QaService.Core.Assessment.FixAttributes("<valve>", "crew \"A\" & B", "北-7 😀", 0.02, 1.1, "rtk-float");
+        report = report with { Residuals = [.. report.Residuals.Select((r, i) => i % 2 == 0 ? r with { Attributes = attributed } : r)] };
         Assert.Equal(JsonSerializer.Serialize(report, ReportJson.Write), await WrittenAsync(report));
     }
 

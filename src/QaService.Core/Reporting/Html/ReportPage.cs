@@ -23,6 +23,7 @@ public static class ReportPage
 
         AnswerSection.Render(html, report);
         FiguresSection.Render(html, report);
+        GroupsSection.Render(html, report);
         PlotsSection.Render(html, report, plots);
         ChecksSection.Render(html, report);
         ResidualTable.Render(html, report, plots);
