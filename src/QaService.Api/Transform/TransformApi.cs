@@ -90,7 +90,10 @@ internal static class TransformApi
             }
             writer.WriteEndArray();
             writer.WriteString("operation", result.Operation);
-            writer.WriteNumber("accuracy", result.AccuracyMetres);
+            if (result.AccuracyMetres is { } accuracy)
+                writer.WriteNumber("accuracy", accuracy);
+            else
+                writer.WriteNull("accuracy");
             writer.WriteEndObject();
             await writer.FlushAsync(httpContext.RequestAborted);
         }

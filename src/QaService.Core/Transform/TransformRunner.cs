@@ -61,7 +61,7 @@ public static class TransformRunner
             return new TransformOutcome(null, errors);
 
         var epochNote = request.Epoch is { } t ? InvariantText.Format($"{t} (request epoch)") : null;
-        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyMetres), []);
+        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyUnknown ? null : operation.AccuracyMetres), []);
     }
 
     private static CoordinateReferenceSystem? ResolveCrs(string? text, string pointer, List<InputError> errors)

@@ -21,7 +21,7 @@ public static class CoordinateOperationPlanner
     public static OperationPlan Plan(CoordinateReferenceSystem source, CoordinateReferenceSystem target,
         GeoidModel? sourceGeoid = null, GeoidModel? targetGeoid = null, DatumGraph? graph = null)
     {
-        var path = (graph ?? DatumGraph.Default).FindPath(source.Datum.Code, target.Datum.Code);
+        var path = Route(graph ?? DatumGraph.Default, source.Datum, target.Datum);
         if (path is null)
             return new OperationPlan(null, $"no transformation is known between {source.Datum.Name} ({source.Datum.Code}) and {target.Datum.Name} ({target.Datum.Code})");
 
@@ -60,6 +60,32 @@ public static class CoordinateOperationPlanner
                 break;
         }
         return new OperationPlan(new CoordinateOperation(source, target, builder.Steps), null);
+    }
+
+    /// <summary>EPSG:6326, the hub a shift given with a CRS (TOWGS84, BOUNDCRS) leads to.</summary>
+    private const string Wgs84Datum = "EPSG:6326";
+
+    /// <summary>
+    /// The datum steps: a shift given with a CRS is used whenever it is there (as PROJ does for a bound CRS), joining
+    /// its datum to the WGS 84 hub; the graph supplies the rest of the way from or to WGS 84. Same datum code: no
+    /// step, unless both sides carry different given shifts (then both are used, through WGS 84).
+    /// </summary>
+    private static List<DatumEdge>? Route(DatumGraph graph, GeodeticDatum from, GeodeticDatum to)
+    {
+        if (from.Code == to.Code && (from.HelmertToWgs84 is null || to.HelmertToWgs84 is null || from.HelmertToWgs84 == to.HelmertToWgs84))
+            return [];
+        var head = from.HelmertToWgs84 is { } up ? new DatumEdge(from.Code, Wgs84Datum, new GivenHelmertStep(from, up, toWgs84: true), StepDomain.Geocentric) : null;
+        var tail = to.HelmertToWgs84 is { } down ? new DatumEdge(Wgs84Datum, to.Code, new GivenHelmertStep(to, down, toWgs84: false), StepDomain.Geocentric) : null;
+        var middle = graph.FindPath(head is null ? from.Code : Wgs84Datum, tail is null ? to.Code : Wgs84Datum);
+        if (middle is null)
+            return null;
+        var path = new List<DatumEdge>();
+        if (head is not null)
+            path.Add(head);
+        path.AddRange(middle);
+        if (tail is not null)
+            path.Add(tail);
+        return path;
     }
 
     /// <summary>Tracks what the arrays hold after each step.</summary>

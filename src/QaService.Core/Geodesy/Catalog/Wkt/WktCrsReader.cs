@@ -285,9 +285,14 @@ public static partial class WktCrsReader
 
         const double PartsPerMillion = 1e-6;
         double sign = frame ? -1 : 1; // coordinate frame → position vector: rotations change sign (GN7-2, Helmert 7-parameter)
+        var given = frame ? "coordinate frame rotations, applied with their signs reversed as position vector"
+            : vector ? "position vector rotations" : "geocentric translations";
         return new HelmertToWgs84(Get(8605, 1), Get(8606, 1), Get(8607, 1),
             sign * Get(8608, RadiansPerArcSecond), sign * Get(8609, RadiansPerArcSecond), sign * Get(8610, RadiansPerArcSecond),
-            Get(8611, PartsPerMillion));
+            Get(8611, PartsPerMillion))
+        {
+            GivenAs = $"WKT2 BOUNDCRS ABRIDGEDTRANSFORMATION \"{transformation.Name}\" ({given})",
+        };
     }
 
     private static bool IsWgs84(WktNode crs) =>
