@@ -67,9 +67,9 @@ public sealed class EqualEarth : IMapProjection
         t6 = t2 * t2 * t2;
         double dLambda = M * x * (A1 + (3 * A2 * t2) + (t6 * ((7 * A3) + (9 * A4 * t2)))) / Math.Cos(theta);
         double sinBeta = Math.Sin(theta) / M;
-        if (!(Math.Abs(sinBeta) <= 1))
+        if (!(Math.Abs(sinBeta) <= 1 + 1e-10)) // up to about 1 mm beyond the pole line (rounding) is the pole
             return (double.NaN, double.NaN);
-        double lat = AuthalicLatitude.LatitudeFromBetaSeries(Math.Asin(sinBeta), _e);
+        double lat = AuthalicLatitude.LatitudeFromBetaSeries(Math.Asin(Math.Clamp(sinBeta, -1, 1)), _e);
         return (lat, Math.IEEERemainder(_lon0 + (dLambda / AngleMath.RadiansPerDegree), AngleMath.FullTurnDegrees));
     }
 }

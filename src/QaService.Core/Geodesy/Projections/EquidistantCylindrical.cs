@@ -4,7 +4,7 @@ namespace QaService.Core.Geodesy.Projections;
 /// Equidistant Cylindrical, EPSG methods 1028 (ellipsoidal) and 1029 (spherical), after EPSG Guidance Note 7-2
 /// (IOGP 373-7-2, 2019) section "Equidistant Cylindrical"; Snyder (1987), USGS PP 1395, eqs. 12-1, 12-2 (p. 91):
 /// E = FE + ν₁ cos φ₁·Δλ, N = FN + M(φ) with ν₁ the prime-vertical radius at the standard parallel and M the meridian
-/// distance (<see cref="MeridianArc"/>, ≤ 0.1 mm); on a sphere of radius R, ν₁ = R and M = R·φ. Inverse: φ is the
+/// distance (<see cref="MeridianArc"/>, Krüger series, nanometres); on a sphere of radius R, ν₁ = R and M = R·φ. Inverse: φ is the
 /// footpoint latitude of N − FN. Units: degrees, metres. Domain: the whole ellipsoid, |Δλ| ≤ 180°.
 /// Note: PROJ 9.1.1 evaluates method 1028 with the spherical formula on the semi-major axis (<c>+proj=eqc</c> has no
 /// ellipsoidal form), so its northings for EPSG:4087 differ from EPSG's by up to about 10 km at mid-latitudes.
@@ -45,8 +45,12 @@ public sealed class EquidistantCylindrical : IMapProjection
     {
         AngleMath.ValidateFinite(eastingMetres, nameof(eastingMetres));
         AngleMath.ValidateFinite(northingMetres, nameof(northingMetres));
-        double lat = _arc.Footpoint(northingMetres - _fn) / AngleMath.RadiansPerDegree;
-        if (!(Math.Abs(lat) <= AngleMath.QuarterTurnDegrees))
+        double m = northingMetres - _fn;
+        // A northing within 1 mm beyond the pole line (rounding, another radius series) is the pole; further is off the map.
+        if (Math.Abs(m) > _arc.QuarterMeridianMetres && Math.Abs(m) <= _arc.QuarterMeridianMetres + 1e-3)
+            m = Math.CopySign(_arc.QuarterMeridianMetres, m);
+        double lat = _arc.Footpoint(m) / AngleMath.RadiansPerDegree;
+        if (double.IsNaN(lat))
             return (double.NaN, double.NaN);
         double lon = _lon0 + ((eastingMetres - _fe) / _xScale / AngleMath.RadiansPerDegree);
         return (lat, Math.IEEERemainder(lon, AngleMath.FullTurnDegrees));
