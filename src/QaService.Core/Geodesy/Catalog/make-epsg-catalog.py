@@ -37,7 +37,7 @@ DATUMS = [
 
 # Conversion methods implemented in src/QaService.Core/Geodesy/Projections (and TransverseMercator.cs).
 METHODS = [9807, 9801, 9802, 9804, 9805, 1024, 9809, 9810, 9829, 9820, 9822, 9812, 9815,
-           1026, 1027, 1028, 1029, 1051, 1078, 9806, 9808, 9824, 9826, 9835]
+           1026, 1027, 1028, 1029, 1051, 1052, 1078, 9806, 9808, 9824, 9826, 9835]
 
 # Westing/southing axes are kept only where the method itself counts that way (its formulas give W/S):
 # 9808 Transverse Mercator (South Orientated) W, S; 9826 Lambert Conic Conformal (West Orientated) W, N.
