@@ -20,7 +20,7 @@ public static class ProjectionFactory
         ProjectionMethodCodes.EquidistantCylindrical, ProjectionMethodCodes.EquidistantCylindricalSpherical,
         ProjectionMethodCodes.LambertConicConformal2SPMichigan, ProjectionMethodCodes.EqualEarth, ProjectionMethodCodes.CassiniSoldner,
         ProjectionMethodCodes.TransverseMercatorSouthOrientated, ProjectionMethodCodes.TransverseMercatorZoned,
-        ProjectionMethodCodes.LambertConicConformalWestOrientated, ProjectionMethodCodes.LambertCylindricalEqualArea,
+        ProjectionMethodCodes.LambertConicConformalWestOrientated, ProjectionMethodCodes.LambertCylindricalEqualArea, ProjectionMethodCodes.ColombiaUrban,
     };
 
     /// <summary>Creates the projection, or null when the method is not implemented.</summary>
@@ -93,6 +93,8 @@ public static class ProjectionFactory
                 westing: true, southing: false, Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
             ProjectionMethodCodes.LambertCylindricalEqualArea => new LambertCylindricalEqualArea(ellipsoid, Get(P.LatitudeOf1stStandardParallel, 0),
                 Get(P.LongitudeOfNaturalOrigin), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.ColombiaUrban => new ColombiaUrban(ellipsoid, Get(P.LatitudeOfNaturalOrigin), Get(P.LongitudeOfNaturalOrigin),
+                Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0), Get(P.ProjectionPlaneOriginHeight, 0)),
             _ => null,
         };
     }

@@ -39,6 +39,8 @@ public static class ProjectionMethodCodes
     public const int EquidistantCylindricalSpherical = 1029;
     /// <summary>Lambert Conic Conformal (2SP Michigan).</summary>
     public const int LambertConicConformal2SPMichigan = 1051;
+    /// <summary>Colombia Urban.</summary>
+    public const int ColombiaUrban = 1052;
     /// <summary>Equal Earth.</summary>
     public const int EqualEarth = 1078;
     /// <summary>Cassini-Soldner.</summary>

@@ -47,6 +47,8 @@ public static class ProjectionParameterCodes
     public const int InitialLongitude = 8830;
     /// <summary>Zone width (degrees), Transverse Mercator Zoned Grid System.</summary>
     public const int ZoneWidth = 8831;
+    /// <summary>Projection plane origin height (metres), Colombia Urban.</summary>
+    public const int ProjectionPlaneOriginHeight = 1039;
     /// <summary>Ellipsoid scaling factor (unity), Lambert Conic Conformal (2SP Michigan).</summary>
     public const int EllipsoidScalingFactor = 1038;
 }

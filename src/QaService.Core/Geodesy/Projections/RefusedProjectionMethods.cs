@@ -13,7 +13,6 @@ public static class RefusedProjectionMethods
     /// <summary>EPSG method code → (EPSG name, WKT names seen in the wild, why it is refused).</summary>
     public static IReadOnlyDictionary<int, (string Name, string[] WktNames, string Reason)> All { get; } = new Dictionary<int, (string, string[], string)>
     {
-        [1052] = ("Colombia Urban", ["Colombia Urban"], $"{NotYet} (32 EPSG CRSs, all on MAGNA-SIRGAS city grids with a projection-plane height)"),
         [9819] = ("Krovak", ["Krovak"], $"{NotYet} (oblique conformal conic on the Gauss sphere; 3 EPSG CRSs, S-JTSK)"),
         [1041] = ("Krovak (North Orientated)", ["Krovak North Orientated"], $"{NotYet} (3 EPSG CRSs, S-JTSK)"),
         [1042] = ("Krovak Modified", ["Krovak Modified"], $"{NotYet} (adds a 5th-order polynomial correction; 2 EPSG CRSs)"),

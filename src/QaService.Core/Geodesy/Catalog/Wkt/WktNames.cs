@@ -47,6 +47,7 @@ internal static class WktNames
         ["lambertcylindricalequalarea"] = M.LambertCylindricalEqualArea,
         ["lambertcylindricalequalareaellipsoidal"] = M.LambertCylindricalEqualArea,
         ["cylindricalequalarea"] = M.LambertCylindricalEqualArea,
+        ["colombiaurban"] = M.ColombiaUrban,
     };
 
     private static readonly Dictionary<string, int> EpsgParameters = new()
@@ -74,6 +75,7 @@ internal static class WktNames
         ["initiallongitude"] = P.InitialLongitude,
         ["zonewidth"] = P.ZoneWidth,
         ["ellipsoidscalingfactor"] = P.EllipsoidScalingFactor,
+        ["projectionplaneoriginheight"] = P.ProjectionPlaneOriginHeight,
     };
 
     /// <summary>Lower-case letters and digits only.</summary>
@@ -151,6 +153,7 @@ internal static class WktNames
         [P.InitialLongitude] = "Initial longitude",
         [P.ZoneWidth] = "Zone width",
         [P.EllipsoidScalingFactor] = "Ellipsoid scaling factor",
+        [P.ProjectionPlaneOriginHeight] = "Projection plane origin height",
     };
 
     /// <summary>EPSG method name for display.</summary>
@@ -180,6 +183,7 @@ internal static class WktNames
         M.TransverseMercatorZoned => "Transverse Mercator Zoned Grid System",
         M.LambertConicConformalWestOrientated => "Lambert Conic Conformal (West Orientated)",
         M.LambertCylindricalEqualArea => "Lambert Cylindrical Equal Area",
+        M.ColombiaUrban => "Colombia Urban",
         _ => $"EPSG:{code}",
     };
 
