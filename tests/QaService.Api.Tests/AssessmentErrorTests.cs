@@ -90,7 +90,7 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
     [InlineData("EPSG:27572", "not supported yet")]
     [InlineData("EPSG:99999", "not supported yet")]
     [InlineData("PROJCS[\"NZGD2000 / New Zealand Transverse Mercator 2000\",GEOGCS[\"NZGD2000\"]]", "has no DATUM")]
-    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257222101]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],UNIT[\"metre\",1]]", "not supported yet")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257222101]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Krovak\"],UNIT[\"metre\",1]]", "(EPSG:9819 Krovak) is not supported")]
     [InlineData("utm33", "not a CRS identifier")]
     [InlineData("", "required")]
     public async Task Unsupported_crs_is_a_clear_400(string crs, string fragment) =>

@@ -24,7 +24,7 @@ WIDEN_DEGREES = 1.0
 # brief names: UTM north/south and zone 1/60, State Plane in US survey feet and international feet,
 # LAEA/LCC Europe, Web Mercator, polar CRSs, Alaska zone 1 (Hotine).
 PER_METHOD = {9807: 14, 9802: 12, 9801: 5, 9822: 5, 9820: 9, 9804: 2, 9805: 1, 1024: 1,
-              9809: 2, 9810: 6, 9829: 8, 9812: 6, 9815: 2}
+              9809: 2, 9810: 6, 9829: 8, 9812: 6, 9815: 2, 1078: 3, 9835: 1}
 ALWAYS = [32601, 32660, 32633, 32733, 32760, 25832, 26910, 6339, 28355, 7855, 2227, 2263, 2240, 6423,
           3035, 3034, 3857, 3413, 3031, 3995, 26931, 3338, 6350, 2246, 3395, 3032]
 

@@ -89,7 +89,10 @@ internal static class TransformApi
             }
             writer.WriteEndArray();
             writer.WriteString("operation", result.Operation);
-            writer.WriteNumber("accuracy", result.AccuracyMetres);
+            if (result.AccuracyMetres is { } accuracy)
+                writer.WriteNumber("accuracy", accuracy);
+            else
+                writer.WriteNull("accuracy");
             writer.WriteStartArray("warnings");
             foreach (var warning in result.Warnings)
             {

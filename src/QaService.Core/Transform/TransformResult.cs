@@ -6,7 +6,8 @@ namespace QaService.Core.Transform;
 
 /// <summary>
 /// A finished batch: the target coordinates in request order as parallel arrays (no object per point),
-/// which of them carry a height, the operation text and its accuracy.
+/// which of them carry a height, the operation text and its accuracy (metres; null when a step's accuracy is
+/// unknown, e.g. a TOWGS84 shift given with the CRS).
 /// </summary>
 public sealed record TransformResult(
     CoordinateReferenceSystem Source,
@@ -14,7 +15,7 @@ public sealed record TransformResult(
     CoordinateBuffer Points,
     bool[] HasHeight,
     string Operation,
-    double AccuracyMetres)
+    double? AccuracyMetres)
 {
     /// <summary>Points outside an area of use of the source CRS, a datum step or the target CRS (request indexes).</summary>
     public IReadOnlyList<AreaWarning> Warnings { get; init; } = [];

@@ -64,7 +64,7 @@ public static class TransformRunner
             return new TransformOutcome(null, errors);
 
         var epochNote = request.Epoch is { } t ? InvariantText.Format($"{t} (request epoch)") : null;
-        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyMetres)
+        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyUnknown ? null : operation.AccuracyMetres)
         {
             Warnings = operation.OutsideAreas(latitudes, longitudes),
         }, []);

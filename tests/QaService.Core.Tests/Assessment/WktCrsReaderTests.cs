@@ -83,7 +83,11 @@ public sealed partial class WktCrsReaderTests
     }
 
     [Theory]
-    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],PARAMETER[\"latitude_of_origin\",0],UNIT[\"metre\",1]]", "not supported yet")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],PARAMETER[\"latitude_of_origin\",0],UNIT[\"metre\",1]]", "parameter EPSG:8802 is required")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6377397.155,299.1528128]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Krovak\"],PARAMETER[\"latitude_of_center\",49.5],UNIT[\"metre\",1]]", "\"Krovak\" (EPSG:9819 Krovak) is not supported: not implemented yet")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Polar_Stereographic_variant_C\"],UNIT[\"metre\",1]]", "PROJ 9.1.1 does not implement it either")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Van_der_Grinten_Z\"],UNIT[\"metre\",1]]", "\"Van_der_Grinten_Z\" is not one the service knows")]
+    [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],PARAMETER[\"latitude_of_origin\",0],PARAMETER[\"central_meridian\",0],UNIT[\"metre\",1],AXIS[\"Y\",WEST],AXIS[\"X\",SOUTH]]", "Cassini-Soldner counts east and north")]
     [InlineData("COMPD_CS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]]],VERT_CS[\"v\"]]", "not supported yet")]
     [InlineData("GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]],PRIMEM[\"Paris\",2.33722917]]", "not supported yet")]
     [InlineData("GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257223563]]", "not closed")]

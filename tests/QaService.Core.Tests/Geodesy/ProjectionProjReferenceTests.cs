@@ -58,6 +58,6 @@ public sealed class ProjectionProjReferenceTests(ITestOutputHelper output)
         foreach (var (method, w) in worst.OrderBy(p => p.Key))
             output.WriteLine($"{method}: {w.Count} rows, max forward {w.Forward:E2} m, max inverse {w.Inverse:E2} m");
         Assert.True(failures.Count == 0, $"{failures.Count} rows beyond 1 mm (PROJ 9.1.1 cs2cs): " + string.Join("; ", failures.Take(10)));
-        Assert.Equal(13, worst.Count); // every implemented method appears in the file
+        Assert.Equal(15, worst.Count); // every catalog method PROJ 9.1.1 runs from an EPSG code (not 1028, 9824, 9826: see projection-sweep-proj.tsv)
     }
 }

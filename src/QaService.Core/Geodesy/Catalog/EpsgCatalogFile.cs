@@ -14,8 +14,8 @@ internal static class EpsgCatalogFile
     private const int MetreCode = 9001, InternationalFootCode = 9002, UsSurveyFootCode = 9003;
 
     /// <summary>Parameter codes whose values are angles (degrees) or scales (unity); the rest are lengths (metres).</summary>
-    private static readonly HashSet<int> AngleParameters = [8801, 8802, 8811, 8812, 8813, 8814, 8821, 8822, 8823, 8824, 8832, 8833];
-    private static readonly HashSet<int> ScaleParameters = [8805, 8815];
+    private static readonly HashSet<int> AngleParameters = [8801, 8802, 8811, 8812, 8813, 8814, 8821, 8822, 8823, 8824, 8830, 8831, 8832, 8833];
+    private static readonly HashSet<int> ScaleParameters = [8805, 8815, 1038];
 
     internal static IReadOnlyList<CoordinateReferenceSystem> Load()
     {
@@ -129,8 +129,8 @@ internal static class EpsgCatalogFile
         CrsKind.Geocentric => index switch { 0 => "x", 1 => "y", _ => "z" },
         _ => direction switch
         {
-            "east" => "e",
-            "north" => "n",
+            "east" or "west" => "e", // a westing is the east-west coordinate, counted the other way (EPSG 9808, 9826)
+            "north" or "south" => "n",
             "up" => "h",
             _ when abbreviation.StartsWith('E') => "e",
             _ when abbreviation.StartsWith('N') => "n",

@@ -21,4 +21,7 @@ public sealed record HelmertToWgs84(
 {
     /// <summary>Sign convention of the rotations: always "position vector" for WKT1 TOWGS84 (EPSG method 9606).</summary>
     public const string Convention = "position vector";
+
+    /// <summary>Where the parameters were read and the rotation convention they were written in, for the operation text.</summary>
+    public string GivenAs { get; init; } = "WKT1 TOWGS84 (position vector rotations)";
 }

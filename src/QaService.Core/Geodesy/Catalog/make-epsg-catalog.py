@@ -31,10 +31,13 @@ sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), ".."
 import datum_scope  # noqa: E402
 
 # Conversion methods implemented in src/QaService.Core/Geodesy/Projections (and TransverseMercator.cs).
-METHODS = [9807, 9801, 9802, 9804, 9805, 1024, 9809, 9810, 9829, 9820, 9822, 9812, 9815]
+METHODS = [9807, 9801, 9802, 9804, 9805, 1024, 9809, 9810, 9829, 9820, 9822, 9812, 9815,
+           1026, 1027, 1028, 1029, 1051, 1052, 1078, 9806, 9808, 9824, 9826, 9835]
 
-# Axis orientations whose values are the projection's own x (first) and y (second) unchanged.
-# Westing/southing axes (e.g. EPSG CS 1031 "X west") would need a sign flip and are left out.
+# Westing/southing axes are kept only where the method itself counts that way (its formulas give W/S):
+# 9808 Transverse Mercator (South Orientated) W, S; 9826 Lambert Conic Conformal (West Orientated) W, N.
+# Other west/south axes (e.g. Cassini-Soldner on EPSG CS 6501) would need a sign flip and are left out.
+NATIVE_WEST_SOUTH = {9808: {"west", "south"}, 9826: {"west"}}
 KINDS = {"geographic 2D": "geog2d", "geographic 3D": "geog3d", "geocentric": "geocen"}
 EXACT_METRES = {9001: Fraction(1), 9002: Fraction(3048, 10000), 9003: Fraction(1200, 3937)}
 
@@ -144,7 +147,8 @@ def main():
             continue
         ax = axes(cs)
         orientations = [o.lower() for _, o, _ in ax]
-        if len(ax) != 2 or "west" in orientations or "south" in orientations or ax[0][2] != ax[1][2]:
+        flipped = {o for o in orientations if o in ("west", "south")}
+        if len(ax) != 2 or (flipped and flipped != NATIVE_WEST_SOUTH.get(int(method))) or ax[0][2] != ax[1][2]:
             skipped.append(f"{code} {name}: axes {ax}")
             continue
         params = []

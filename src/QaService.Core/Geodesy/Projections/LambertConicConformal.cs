@@ -56,9 +56,11 @@ public sealed class LambertConicConformal : IMapProjection
     /// <param name="secondParallelDegrees">φ₂, degrees, not ±90 and not −φ₁.</param>
     /// <param name="falseOriginEastingMetres">EF, metres.</param>
     /// <param name="falseOriginNorthingMetres">NF, metres.</param>
+    /// <param name="methodName">EPSG 1051 "Lambert Conic Conformal (2SP Michigan)" is this method on the ellipsoid scaled by K
+    /// (a·K, same flattening; GN7-2 section of that name, PROJ's <c>+k_0</c>): the caller passes the scaled ellipsoid and the name.</param>
     public static LambertConicConformal TwoParallels(Ellipsoid ellipsoid, double falseOriginLatitudeDegrees,
         double falseOriginLongitudeDegrees, double firstParallelDegrees, double secondParallelDegrees,
-        double falseOriginEastingMetres, double falseOriginNorthingMetres)
+        double falseOriginEastingMetres, double falseOriginNorthingMetres, string methodName = "Lambert Conic Conformal (2SP)")
     {
         double e = ellipsoid.FirstEccentricity;
         double m1 = IsometricLatitude.M(firstParallelDegrees, e), m2 = IsometricLatitude.M(secondParallelDegrees, e);
@@ -69,7 +71,7 @@ public sealed class LambertConicConformal : IMapProjection
             : (Math.Log(m1) - Math.Log(m2)) / (psi2 - psi1);
         CheckCone(n);
         double f = m1 / (n * Math.Exp(-n * psi1));
-        return new LambertConicConformal("Lambert Conic Conformal (2SP)", ellipsoid, n, f, 1.0,
+        return new LambertConicConformal(methodName, ellipsoid, n, f, 1.0,
             falseOriginLatitudeDegrees, falseOriginLongitudeDegrees, falseOriginEastingMetres, falseOriginNorthingMetres);
     }
 

@@ -10,7 +10,7 @@ namespace QaService.Core.Geodesy.Projections;
 /// GN7-2's w = c·(Sa·Sb^e)ⁿ equals c·exp(2nψ), ψ the isometric latitude, so the conformal-sphere
 /// latitude is χ = gd(nψ + ½ ln c); the inverse inverts this exactly (ψ → φ by Newton) instead of GN7-2's
 /// fixed-point loop. R = √(ρ₀ν₀), n = √(1 + e² cos⁴φ₀/(1 − e²)). Units: degrees, metres. Domain: the
-/// whole ellipsoid except the antipode of the origin.
+/// whole ellipsoid except the antipode of the origin; an origin at a pole is taken in its limit (see the constructor).
 /// </remarks>
 public sealed class ObliqueStereographic : IMapProjection
 {
@@ -35,11 +35,18 @@ public sealed class ObliqueStereographic : IMapProjection
         _n = Math.Sqrt(1 + (e2 * Math.Pow(cos0, 4) / (1 - e2)));
         double psi0 = IsometricLatitude.Psi(originLatitudeDegrees, _e);
         // GN7-2: sin χ₀ = (w₁ − 1)/(w₁ + 1) with w₁ = exp(2nψ₀); c = (n + sin φ₀)(1 − sin χ₀)/((n − sin φ₀)(1 + sin χ₀)).
-        double sinChiW1 = Math.Tanh(_n * psi0);
-        double c = (_n + sin0) * (1 - sinChiW1) / ((_n - sin0) * (1 + sinChiW1));
-        _halfLnC = Math.Log(c) / 2;
-        double chi0 = Math.Asin(Math.Tanh((_n * psi0) + _halfLnC));
-        (_sinChi0, _cosChi0) = Math.SinCos(chi0);
+        // Near a pole that is 0/0 (PROJ 9.1.1's +proj=sterea returns garbage at lat_0 = 89.99999999°). Rewritten without
+        // cancellation, using (1 − tanh x)/(1 + tanh x) = e^(−2x), n − s = cos²φ₀(1 + e²cos²φ₀/(1 − e²))/(n + s) and
+        // ψ₀ = atanh s − e·atanh(e·s), s = |sin φ₀|:
+        //   ½ ln c = ln(n + s) − ½ ln(1 + e²cos²φ₀/(1 − e²)) − ½(n + 1) ln(1 + s) + ½(n − 1) ln(1 − s) + n·e·atanh(e·s),
+        // odd in φ₀. At a pole (n = 1) it is e·atanh e and the method is Polar Stereographic (variant A) (PROJ's sterea at
+        // lat_0 = ±90 gives the same values as +proj=stere).
+        double s = Math.Abs(sin0), cos2 = cos0 * cos0;
+        double lowerPoleTerm = _n == 1 ? 0 : (_n - 1) / 2 * Math.Log(1 - s);
+        _halfLnC = Math.Sign(originLatitudeDegrees) * (Math.Log(_n + s) - (Math.Log(1 + (e2 * cos2 / (1 - e2))) / 2)
+            - ((_n + 1) / 2 * Math.Log(1 + s)) + lowerPoleTerm + (_n * _e * Math.Atanh(_e * s)));
+        double x0 = (_n * psi0) + _halfLnC;
+        (_sinChi0, _cosChi0) = double.IsInfinity(x0) ? (Math.Sign(x0), 0.0) : (Math.Tanh(x0), 1 / Math.Cosh(x0));
         _twoRk = 2 * radius * scaleFactor;
         OriginLongitudeDegrees = originLongitudeDegrees;
         FalseEastingMetres = falseEastingMetres;

@@ -16,6 +16,11 @@ public static class ProjectionFactory
         ProjectionMethodCodes.ObliqueStereographic, ProjectionMethodCodes.PolarStereographicA, ProjectionMethodCodes.PolarStereographicB,
         ProjectionMethodCodes.LambertAzimuthalEqualArea, ProjectionMethodCodes.AlbersEqualArea,
         ProjectionMethodCodes.HotineObliqueMercatorA, ProjectionMethodCodes.HotineObliqueMercatorB,
+        ProjectionMethodCodes.MercatorSpherical, ProjectionMethodCodes.LambertAzimuthalEqualAreaSpherical,
+        ProjectionMethodCodes.EquidistantCylindrical, ProjectionMethodCodes.EquidistantCylindricalSpherical,
+        ProjectionMethodCodes.LambertConicConformal2SPMichigan, ProjectionMethodCodes.EqualEarth, ProjectionMethodCodes.CassiniSoldner,
+        ProjectionMethodCodes.TransverseMercatorSouthOrientated, ProjectionMethodCodes.TransverseMercatorZoned,
+        ProjectionMethodCodes.LambertConicConformalWestOrientated, ProjectionMethodCodes.LambertCylindricalEqualArea, ProjectionMethodCodes.ColombiaUrban,
     };
 
     /// <summary>Creates the projection, or null when the method is not implemented.</summary>
@@ -61,6 +66,35 @@ public static class ProjectionFactory
                 Get(P.AngleFromRectifiedToSkewGrid), Get(P.ScaleFactorOnInitialLine),
                 methodCode == ProjectionMethodCodes.HotineObliqueMercatorB ? Get(P.EastingAtProjectionCentre, 0) : Get(P.FalseEasting, 0),
                 methodCode == ProjectionMethodCodes.HotineObliqueMercatorB ? Get(P.NorthingAtProjectionCentre, 0) : Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.MercatorSpherical => new SphericalForm("Mercator (Spherical)", Mercator.VariantA(SphericalForm.AuthalicSphere(ellipsoid),
+                Get(P.LongitudeOfNaturalOrigin), 1, Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0))),
+            ProjectionMethodCodes.LambertAzimuthalEqualAreaSpherical => new SphericalForm("Lambert Azimuthal Equal Area (Spherical)",
+                new LambertAzimuthalEqualArea(SphericalForm.AuthalicSphere(ellipsoid), Get(P.LatitudeOfNaturalOrigin), Get(P.LongitudeOfNaturalOrigin),
+                    Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0))),
+            ProjectionMethodCodes.EquidistantCylindrical => new EquidistantCylindrical("Equidistant Cylindrical", ellipsoid,
+                Get(P.LatitudeOf1stStandardParallel, 0), Get(P.LongitudeOfNaturalOrigin), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.EquidistantCylindricalSpherical => new SphericalForm("Equidistant Cylindrical (Spherical)", new EquidistantCylindrical(
+                "Equidistant Cylindrical (Spherical)", SphericalForm.AuthalicSphere(ellipsoid), Get(P.LatitudeOf1stStandardParallel, 0),
+                Get(P.LongitudeOfNaturalOrigin), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0))),
+            ProjectionMethodCodes.LambertConicConformal2SPMichigan => LambertConicConformal.TwoParallels(
+                ellipsoid with { SemiMajorAxisMetres = ellipsoid.SemiMajorAxisMetres * Get(P.EllipsoidScalingFactor) }, Get(P.LatitudeOfFalseOrigin),
+                Get(P.LongitudeOfFalseOrigin), Get(P.LatitudeOf1stStandardParallel), Get(P.LatitudeOf2ndStandardParallel),
+                Get(P.EastingAtFalseOrigin, 0), Get(P.NorthingAtFalseOrigin, 0), "Lambert Conic Conformal (2SP Michigan)"),
+            ProjectionMethodCodes.EqualEarth => new EqualEarth(ellipsoid, Get(P.LongitudeOfNaturalOrigin, 0), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.CassiniSoldner => new CassiniSoldner(ellipsoid, Get(P.LatitudeOfNaturalOrigin), Get(P.LongitudeOfNaturalOrigin),
+                Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.TransverseMercatorSouthOrientated => new OrientedAxes("Transverse Mercator (South Orientated)",
+                new TransverseMercator(ellipsoid, Get(P.LongitudeOfNaturalOrigin), Get(P.ScaleFactorAtNaturalOrigin), 0, 0, Get(P.LatitudeOfNaturalOrigin, 0)),
+                westing: true, southing: true, Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.TransverseMercatorZoned => new TransverseMercatorZoned(ellipsoid, Get(P.LatitudeOfNaturalOrigin, 0), Get(P.InitialLongitude),
+                Get(P.ZoneWidth), Get(P.ScaleFactorAtNaturalOrigin), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.LambertConicConformalWestOrientated => new OrientedAxes("Lambert Conic Conformal (West Orientated)",
+                LambertConicConformal.OneParallel(ellipsoid, Get(P.LatitudeOfNaturalOrigin), Get(P.LongitudeOfNaturalOrigin), Get(P.ScaleFactorAtNaturalOrigin, 1), 0, 0),
+                westing: true, southing: false, Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.LambertCylindricalEqualArea => new LambertCylindricalEqualArea(ellipsoid, Get(P.LatitudeOf1stStandardParallel, 0),
+                Get(P.LongitudeOfNaturalOrigin), Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0)),
+            ProjectionMethodCodes.ColombiaUrban => new ColombiaUrban(ellipsoid, Get(P.LatitudeOfNaturalOrigin), Get(P.LongitudeOfNaturalOrigin),
+                Get(P.FalseEasting, 0), Get(P.FalseNorthing, 0), Get(P.ProjectionPlaneOriginHeight, 0)),
             _ => null,
         };
     }

@@ -29,4 +29,28 @@ public static class ProjectionMethodCodes
     public const int AlbersEqualArea = 9822;
     /// <summary>Polar Stereographic (variant B).</summary>
     public const int PolarStereographicB = 9829;
+    /// <summary>Mercator (Spherical).</summary>
+    public const int MercatorSpherical = 1026;
+    /// <summary>Lambert Azimuthal Equal Area (Spherical).</summary>
+    public const int LambertAzimuthalEqualAreaSpherical = 1027;
+    /// <summary>Equidistant Cylindrical (ellipsoidal).</summary>
+    public const int EquidistantCylindrical = 1028;
+    /// <summary>Equidistant Cylindrical (Spherical).</summary>
+    public const int EquidistantCylindricalSpherical = 1029;
+    /// <summary>Lambert Conic Conformal (2SP Michigan).</summary>
+    public const int LambertConicConformal2SPMichigan = 1051;
+    /// <summary>Colombia Urban.</summary>
+    public const int ColombiaUrban = 1052;
+    /// <summary>Equal Earth.</summary>
+    public const int EqualEarth = 1078;
+    /// <summary>Cassini-Soldner.</summary>
+    public const int CassiniSoldner = 9806;
+    /// <summary>Transverse Mercator (South Orientated).</summary>
+    public const int TransverseMercatorSouthOrientated = 9808;
+    /// <summary>Transverse Mercator Zoned Grid System.</summary>
+    public const int TransverseMercatorZoned = 9824;
+    /// <summary>Lambert Conic Conformal (West Orientated).</summary>
+    public const int LambertConicConformalWestOrientated = 9826;
+    /// <summary>Lambert Cylindrical Equal Area (ellipsoidal).</summary>
+    public const int LambertCylindricalEqualArea = 9835;
 }

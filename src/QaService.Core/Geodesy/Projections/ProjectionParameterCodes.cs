@@ -43,4 +43,12 @@ public static class ProjectionParameterCodes
     public const int LatitudeOfStandardParallel = 8832;
     /// <summary>Longitude of origin (degrees).</summary>
     public const int LongitudeOfOrigin = 8833;
+    /// <summary>Initial longitude (degrees), Transverse Mercator Zoned Grid System.</summary>
+    public const int InitialLongitude = 8830;
+    /// <summary>Zone width (degrees), Transverse Mercator Zoned Grid System.</summary>
+    public const int ZoneWidth = 8831;
+    /// <summary>Projection plane origin height (metres), Colombia Urban.</summary>
+    public const int ProjectionPlaneOriginHeight = 1039;
+    /// <summary>Ellipsoid scaling factor (unity), Lambert Conic Conformal (2SP Michigan).</summary>
+    public const int EllipsoidScalingFactor = 1038;
 }

@@ -58,6 +58,9 @@ public sealed class CoordinateOperation(CoordinateReferenceSystem source, Coordi
     /// <summary>Sum of the steps' accuracies, metres.</summary>
     public double AccuracyMetres => steps.Sum(s => s.AccuracyMetres);
 
+    /// <summary>True when a step's accuracy is not stated (a shift given with the CRS): <see cref="AccuracyMetres"/> then sums only the others.</summary>
+    public bool AccuracyUnknown => steps.Any(s => s.AccuracyUnknown);
+
     /// <summary>True when a step depends on the observation epoch (a time-dependent Helmert).</summary>
     public bool UsesEpoch => steps.Any(s => s.UsesEpoch);
 
@@ -80,7 +83,9 @@ public sealed class CoordinateOperation(CoordinateReferenceSystem source, Coordi
         var text = string.Join("; ", steps.Select((s, i) => string.Create(CultureInfo.InvariantCulture, $"{i + 1}. {s.Description}")));
         var summary = IsDatumFree
             ? (steps.Any(s => s is InverseProjectionStep or ForwardProjectionStep) ? "projection only, same datum" : "conversion only, same datum")
-            : string.Create(CultureInfo.InvariantCulture, $"accuracy {AccuracyMetres:0.###} m (sum of the steps' stated accuracies)");
+            : AccuracyUnknown
+                ? string.Create(CultureInfo.InvariantCulture, $"accuracy unknown: a shift given with the CRS states none (the other steps' stated accuracies sum to {AccuracyMetres:0.###} m)")
+                : string.Create(CultureInfo.InvariantCulture, $"accuracy {AccuracyMetres:0.###} m (sum of the steps' stated accuracies)");
         var epoch = UsesEpoch ? $"; observation epoch: {epochNote ?? "none given, so the time-dependent steps are evaluated at their reference epochs (as PROJ's cs2cs does)"}" : "";
         return $"{source.Identifier} ({source.Name}) → {target.Identifier} ({target.Name}): {text}; {summary}{epoch}{DescribeChoice()}";
     }

@@ -26,7 +26,7 @@ public static class CoordinateOperationPlanner
         AreaOfUse? pointsBox = null, int? operationCode = null)
     {
         graph ??= DatumGraph.Default;
-        var route = graph.Route(source.Datum.Code, target.Datum.Code, pointsBox, operationCode);
+        var route = Route(graph, source.Datum, target.Datum, pointsBox, operationCode);
         if (route.Problem is not null)
             return new OperationPlan(null, route.Problem, route.ProblemIsOperationCode);
         var path = route.Path;
@@ -72,6 +72,35 @@ public static class CoordinateOperationPlanner
             DatumEdges = path,
             Alternatives = path.Where(e => e.OperationCode != 0).ToDictionary(e => e, graph.Alternatives),
         }, null);
+    }
+
+    /// <summary>EPSG:6326, the hub a shift given with a CRS (TOWGS84, BOUNDCRS) leads to.</summary>
+    private const string Wgs84Datum = "EPSG:6326";
+
+    /// <summary>
+    /// The datum steps: a shift given with a CRS is used whenever it is there (as PROJ does for a bound CRS), joining
+    /// its datum to the WGS 84 hub; the graph supplies the rest of the way from or to WGS 84 (with the caller's
+    /// <paramref name="operationCode"/> and area preference). Same datum code: no step, unless both sides carry
+    /// different given shifts (then both are used, through WGS 84).
+    /// </summary>
+    private static DatumRoute Route(DatumGraph graph, GeodeticDatum from, GeodeticDatum to, AreaOfUse? pointsBox, int? operationCode)
+    {
+        if (from.HelmertToWgs84 is null && to.HelmertToWgs84 is null)
+            return graph.Route(from.Code, to.Code, pointsBox, operationCode);
+        if (from.Code == to.Code && (from.HelmertToWgs84 is null || to.HelmertToWgs84 is null || from.HelmertToWgs84 == to.HelmertToWgs84))
+            return new DatumRoute([], null);
+        var head = from.HelmertToWgs84 is { } up ? new DatumEdge(from.Code, Wgs84Datum, new GivenHelmertStep(from, up, toWgs84: true), StepDomain.Geocentric) : null;
+        var tail = to.HelmertToWgs84 is { } down ? new DatumEdge(Wgs84Datum, to.Code, new GivenHelmertStep(to, down, toWgs84: false), StepDomain.Geocentric) : null;
+        var middle = graph.Route(head is null ? from.Code : Wgs84Datum, tail is null ? to.Code : Wgs84Datum, pointsBox, operationCode);
+        if (middle.Path is null)
+            return middle;
+        var path = new List<DatumEdge>();
+        if (head is not null)
+            path.Add(head);
+        path.AddRange(middle.Path);
+        if (tail is not null)
+            path.Add(tail);
+        return new DatumRoute(path, null);
     }
 
     /// <summary>Tracks what the arrays hold after each step.</summary>

@@ -9,6 +9,9 @@ public interface IOperationStep
     /// <summary>Accuracy of the step as EPSG states it, metres; 0 for exact conversions.</summary>
     double AccuracyMetres { get; }
 
+    /// <summary>True when nobody states the step's accuracy (parameters given with a CRS): the route's accuracy is then unknown.</summary>
+    bool AccuracyUnknown => false;
+
     /// <summary>True when the step's result depends on the observation epoch.</summary>
     bool UsesEpoch => false;
 

@@ -128,8 +128,9 @@ public static partial class WktCrsReader
         double angleFactor = AngleUnitFactor(geodetic) ?? RadiansPerDegree;
         var unit = kind == CrsKind.Geographic ? LinearUnit.Metre : LengthUnit(root) ?? LinearUnit.Metre;
         var axes = Axes(root, kind.Value, unit);
-        if (axes.Any(a => a.Direction is "west" or "south"))
-            return CrsResolution.Failed("CRSs with westing or southing axes are not supported yet");
+        bool westOrSouth = axes.Any(a => a.Direction is "west" or "south");
+        if (westOrSouth && kind != CrsKind.Projected)
+            return CrsResolution.Failed("geographic or geocentric CRSs with west or south axes are not supported; give latitude north and longitude east");
         if (kind == CrsKind.Projected && IsPseudoMercatorExtension(root))
             return BuildPseudoMercator(root, datum, unit, axes);
 
@@ -140,6 +141,8 @@ public static partial class WktCrsReader
             var (method, methodName, values, problem) = Conversion(root, angleFactor, unit);
             if (problem is not null)
                 return CrsResolution.Failed(problem);
+            if (westOrSouth && !CountsWestOrSouth(method, axes))
+                return CrsResolution.Failed($"westing or southing axes are supported only where the method itself counts that way (Transverse Mercator (South Orientated): westing, southing; Lambert Conic Conformal (West Orientated): westing, northing); {methodName} counts east and north, and flipping its signs is not supported yet");
             projection = ProjectionFactory.Create(method, datum.Ellipsoid, values);
             definition = new ProjectionDefinition(method, methodName,
                 values.Select(p => new ProjectionParameter(p.Key, WktNames.ParameterName(p.Key), p.Value, EpsgCatalogFile.ParameterUnit(p.Key))).ToList());
@@ -154,6 +157,18 @@ public static partial class WktCrsReader
             AreaOfUse = Area(root),
             BaseCrsIdentifier = kind == CrsKind.Projected ? BaseIdentifier(geodetic) : null,
         });
+    }
+
+    /// <summary>True when the west/south axes are the method's own grid directions (EPSG 9808: W, S; 9826: W, N).</summary>
+    private static bool CountsWestOrSouth(int method, List<CrsAxis> axes)
+    {
+        bool west = axes.Any(a => a.Direction == "west"), south = axes.Any(a => a.Direction == "south");
+        return method switch
+        {
+            ProjectionMethodCodes.TransverseMercatorSouthOrientated => west && south,
+            ProjectionMethodCodes.LambertConicConformalWestOrientated => west && !south,
+            _ => false,
+        };
     }
 
     /// <summary>
@@ -199,7 +214,7 @@ public static partial class WktCrsReader
         if (method == ProjectionMethodCodes.MercatorA && parameterNodes.Any(p => p.Name is { } n && WktNames.Normalise(n) == "standardparallel1"))
             method = ProjectionMethodCodes.MercatorB; // GDAL writes some variant B definitions as Mercator_1SP with a standard parallel
         if (method is null || !ProjectionFactory.SupportedMethods.Contains(method.Value))
-            return (0, "", [], $"projection method \"{methodText}\" is not supported yet; supported: {string.Join(", ", ProjectionFactory.SupportedMethods.Order().Select(WktNames.MethodName))}");
+            return (0, "", [], UnsupportedMethod(methodText, method ?? WktNames.RefusedMethod(methodText)));
         if (method == ProjectionMethodCodes.PolarStereographicA && parameterNodes.Any(p => p.Name is { } n && WktNames.Normalise(n) == "latitudeoforigin" && p.Number(0) is { } lat && Math.Abs(lat * angleFactor / RadiansPerDegree) != 90))
             method = ProjectionMethodCodes.PolarStereographicB; // WKT1 "Polar_Stereographic" with a non-polar latitude of origin is variant B (GDAL)
 
@@ -219,6 +234,14 @@ public static partial class WktCrsReader
         }
 
         return (method.Value, WktNames.MethodName(method.Value), values, null);
+    }
+
+    private static string UnsupportedMethod(string methodText, int? code)
+    {
+        var supported = string.Join(", ", ProjectionFactory.SupportedMethods.Order().Select(WktNames.MethodName));
+        return code is { } c && RefusedProjectionMethods.All.TryGetValue(c, out var refused)
+            ? $"projection method \"{methodText}\" (EPSG:{c} {refused.Name}) is not supported: {refused.Reason}; supported: {supported}"
+            : $"projection method \"{methodText}\" is not one the service knows (neither an EPSG method name nor a WKT1 name it reads); supported: {supported}";
     }
 
     private static GeodeticDatum Datum(WktNode geodetic, WktNode datumNode)
@@ -285,9 +308,14 @@ public static partial class WktCrsReader
 
         const double PartsPerMillion = 1e-6;
         double sign = frame ? -1 : 1; // coordinate frame → position vector: rotations change sign (GN7-2, Helmert 7-parameter)
+        var given = frame ? "coordinate frame rotations, applied with their signs reversed as position vector"
+            : vector ? "position vector rotations" : "geocentric translations";
         return new HelmertToWgs84(Get(8605, 1), Get(8606, 1), Get(8607, 1),
             sign * Get(8608, RadiansPerArcSecond), sign * Get(8609, RadiansPerArcSecond), sign * Get(8610, RadiansPerArcSecond),
-            Get(8611, PartsPerMillion));
+            Get(8611, PartsPerMillion))
+        {
+            GivenAs = $"WKT2 BOUNDCRS ABRIDGEDTRANSFORMATION \"{transformation.Name}\" ({given})",
+        };
     }
 
     private static bool IsWgs84(WktNode crs) =>

@@ -33,6 +33,21 @@ internal static class WktNames
         ["hotineobliquemercator"] = M.HotineObliqueMercatorA,
         ["hotineobliquemercatorvariantb"] = M.HotineObliqueMercatorB,
         ["hotineobliquemercatorazimuthcenter"] = M.HotineObliqueMercatorB,
+        ["mercatorspherical"] = M.MercatorSpherical,
+        ["lambertazimuthalequalareaspherical"] = M.LambertAzimuthalEqualAreaSpherical,
+        ["equidistantcylindrical"] = M.EquidistantCylindrical,
+        ["equirectangular"] = M.EquidistantCylindrical,
+        ["equidistantcylindricalspherical"] = M.EquidistantCylindricalSpherical,
+        ["lambertconicconformal2spmichigan"] = M.LambertConicConformal2SPMichigan,
+        ["equalearth"] = M.EqualEarth,
+        ["cassinisoldner"] = M.CassiniSoldner,
+        ["transversemercatorsouthorientated"] = M.TransverseMercatorSouthOrientated,
+        ["transversemercatorzonedgridsystem"] = M.TransverseMercatorZoned,
+        ["lambertconicconformalwestorientated"] = M.LambertConicConformalWestOrientated,
+        ["lambertcylindricalequalarea"] = M.LambertCylindricalEqualArea,
+        ["lambertcylindricalequalareaellipsoidal"] = M.LambertCylindricalEqualArea,
+        ["cylindricalequalarea"] = M.LambertCylindricalEqualArea,
+        ["colombiaurban"] = M.ColombiaUrban,
     };
 
     private static readonly Dictionary<string, int> EpsgParameters = new()
@@ -57,6 +72,10 @@ internal static class WktNames
         ["northingatfalseorigin"] = P.NorthingAtFalseOrigin,
         ["latitudeofstandardparallel"] = P.LatitudeOfStandardParallel,
         ["longitudeoforigin"] = P.LongitudeOfOrigin,
+        ["initiallongitude"] = P.InitialLongitude,
+        ["zonewidth"] = P.ZoneWidth,
+        ["ellipsoidscalingfactor"] = P.EllipsoidScalingFactor,
+        ["projectionplaneoriginheight"] = P.ProjectionPlaneOriginHeight,
     };
 
     /// <summary>Lower-case letters and digits only.</summary>
@@ -65,6 +84,18 @@ internal static class WktNames
 
     /// <summary>EPSG method code for a WKT1 or EPSG method name, or null.</summary>
     internal static int? Method(string name) => Methods.TryGetValue(Normalise(name), out var code) ? code : null;
+
+    /// <summary>EPSG code of a method the service refuses (<see cref="Projections.RefusedProjectionMethods"/>), by EPSG or WKT1 name, or null.</summary>
+    internal static int? RefusedMethod(string name)
+    {
+        var key = Normalise(name);
+        foreach (var (code, refused) in Projections.RefusedProjectionMethods.All)
+        {
+            if (Normalise(refused.Name) == key || refused.WktNames.Any(n => Normalise(n) == key))
+                return code;
+        }
+        return null;
+    }
 
     /// <summary>EPSG parameter code for an EPSG parameter name (WKT2), or null.</summary>
     internal static int? EpsgParameter(string name) => EpsgParameters.TryGetValue(Normalise(name), out var code) ? code : null;
@@ -75,7 +106,7 @@ internal static class WktNames
     /// </summary>
     internal static int? Wkt1Parameter(string name, int method)
     {
-        bool falseOrigin = method is M.LambertConicConformal2SP or M.AlbersEqualArea;
+        bool falseOrigin = method is M.LambertConicConformal2SP or M.LambertConicConformal2SPMichigan or M.AlbersEqualArea;
         bool hotine = method is M.HotineObliqueMercatorA or M.HotineObliqueMercatorB;
         return Normalise(name) switch
         {
@@ -119,6 +150,10 @@ internal static class WktNames
         [P.NorthingAtFalseOrigin] = "Northing at false origin",
         [P.LatitudeOfStandardParallel] = "Latitude of standard parallel",
         [P.LongitudeOfOrigin] = "Longitude of origin",
+        [P.InitialLongitude] = "Initial longitude",
+        [P.ZoneWidth] = "Zone width",
+        [P.EllipsoidScalingFactor] = "Ellipsoid scaling factor",
+        [P.ProjectionPlaneOriginHeight] = "Projection plane origin height",
     };
 
     /// <summary>EPSG method name for display.</summary>
@@ -137,6 +172,18 @@ internal static class WktNames
         M.AlbersEqualArea => "Albers Equal Area",
         M.HotineObliqueMercatorA => "Hotine Oblique Mercator (variant A)",
         M.HotineObliqueMercatorB => "Hotine Oblique Mercator (variant B)",
+        M.MercatorSpherical => "Mercator (Spherical)",
+        M.LambertAzimuthalEqualAreaSpherical => "Lambert Azimuthal Equal Area (Spherical)",
+        M.EquidistantCylindrical => "Equidistant Cylindrical",
+        M.EquidistantCylindricalSpherical => "Equidistant Cylindrical (Spherical)",
+        M.LambertConicConformal2SPMichigan => "Lambert Conic Conformal (2SP Michigan)",
+        M.EqualEarth => "Equal Earth",
+        M.CassiniSoldner => "Cassini-Soldner",
+        M.TransverseMercatorSouthOrientated => "Transverse Mercator (South Orientated)",
+        M.TransverseMercatorZoned => "Transverse Mercator Zoned Grid System",
+        M.LambertConicConformalWestOrientated => "Lambert Conic Conformal (West Orientated)",
+        M.LambertCylindricalEqualArea => "Lambert Cylindrical Equal Area",
+        M.ColombiaUrban => "Colombia Urban",
         _ => $"EPSG:{code}",
     };
 
