@@ -35,6 +35,10 @@ internal static class PostgresSchema
             created_at timestamptz NOT NULL
         );
         """,
+        // 3: the keyset listing (GET /v1/assessments): newest first within a tenant, id breaking ties.
+        """
+        CREATE INDEX reports_tenant_created ON reports (tenant, created_at DESC, id DESC);
+        """,
     ];
 
     public static async Task MigrateAsync(NpgsqlDataSource dataSource, CancellationToken cancellationToken)
