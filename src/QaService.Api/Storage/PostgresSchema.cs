@@ -41,6 +41,9 @@ internal static class PostgresSchema
         """,
     ];
 
+    /// <summary>The schema version this build migrates to (the number of migrations).</summary>
+    public static int Version => Migrations.Length;
+
     public static async Task MigrateAsync(NpgsqlDataSource dataSource, CancellationToken cancellationToken)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancellationToken);
