@@ -23,7 +23,7 @@ internal sealed class RetentionPurge(IReportStore store, IOptions<StorageOptions
         {
             try
             {
-                await PurgeAsync(days, stoppingToken);
+                await PurgeAsync(days, BatchSize, stoppingToken);
             }
             catch (Exception fault) when (fault is not OperationCanceledException)
             {
@@ -34,16 +34,16 @@ internal sealed class RetentionPurge(IReportStore store, IOptions<StorageOptions
     }
 
     /// <summary>One run: deletes every report created before now − <paramref name="days"/>; returns how many.</summary>
-    internal async Task<int> PurgeAsync(int days, CancellationToken cancellationToken)
+    internal async Task<int> PurgeAsync(int days, int batchSize, CancellationToken cancellationToken)
     {
         var cutoff = clock.GetUtcNow() - TimeSpan.FromDays(days);
         int total = 0, deleted;
         do
         {
-            deleted = await store.DeleteCreatedBeforeAsync(cutoff, BatchSize, cancellationToken);
+            deleted = await store.DeleteCreatedBeforeAsync(cutoff, batchSize, cancellationToken);
             total += deleted;
         }
-        while (deleted == BatchSize);
+        while (deleted == batchSize);
         RetentionLog.Purged(logger, total, days, cutoff);
         return total;
     }
