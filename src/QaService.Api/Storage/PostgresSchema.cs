@@ -35,9 +35,10 @@ internal static class PostgresSchema
             created_at timestamptz NOT NULL
         );
         """,
-        // 3: the keyset listing (GET /v1/assessments): newest first within a tenant, id breaking ties.
+        // 3: the keyset listing (GET /v1/assessments): newest first within a tenant, id breaking ties; verdict and title
+        // included so a filtered list can be an index-only scan.
         """
-        CREATE INDEX reports_tenant_created ON reports (tenant, created_at DESC, id DESC);
+        CREATE INDEX reports_tenant_created ON reports (tenant, created_at DESC, id DESC) INCLUDE (verdict, title);
         """,
     ];
 
