@@ -27,6 +27,9 @@ internal static class ServiceSetup
             .WriteTo.Console(new CompactJsonFormatter()));
 
         builder.Services.AddReportStorage(builder.Configuration);
+        // PROJ's grid files (NTv2) are read at run time from this folder; Debian's proj-data installs them in /usr/share/proj.
+        QaService.Core.Geodesy.Transformations.GridFiles.Directory =
+            builder.Configuration["Geodesy:GridDirectory"] ?? QaService.Core.Geodesy.Transformations.GridFiles.DefaultDirectory;
         builder.Services.AddOptions<LimitsOptions>().BindConfiguration(LimitsOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
@@ -67,17 +70,7 @@ internal static class ServiceSetup
             context.ProblemDetails.Extensions["traceId"] = context.HttpContext.TraceIdentifier;
             context.ProblemDetails.Detail ??= DefaultProblemDetail.For(context.HttpContext);
         });
-        builder.Services.AddOpenApi(options =>
-        {
-            options.AddSchemaTransformer<FieldDescriptionTransformer>();
-            options.AddOperationTransformer<RequestBodyTransformer>();
-            options.AddDocumentTransformer((document, _, _) =>
-            {
-                document.Info.Title = "QaService";
-                document.Info.Description = "Positional accuracy testing of GNSS field positions against surveyed check points (NSSDA, RMSE, CEP). Lengths in metres unless a field says otherwise.";
-                return Task.CompletedTask;
-            });
-        });
+        builder.Services.AddQaServiceOpenApi();
         return builder;
     }
 

@@ -4,7 +4,7 @@ using QaService.Tests.Shared;
 namespace QaService.Browser.Tests;
 
 /// <summary>
-/// The built service started as a child process on 127.0.0.1 (<see cref="ServiceProcess"/>) (a free port, its own SQLite file, demo on), and one
+/// The built service started as a child process on 127.0.0.1 (a free port, its own SQLite file, demo on), and one
 /// headless Debian Chromium driven by Playwright. A browser cannot reach an in-memory test server, hence the process.
 /// When Chromium is not installed the tests say so and return (xunit 2.9 has no dynamic skip); CI installs it.
 /// </summary>
@@ -16,9 +16,6 @@ public sealed class LiveService : IAsyncLifetime
     private static readonly string[] ChromiumArgs =
         ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
 
-    private static readonly TimeSpan StartupTimeout = TimeSpan.FromSeconds(60);
-
-    private readonly string folder = Path.Combine(Path.GetTempPath(), $"qaservice-browser-{Guid.NewGuid():N}");
     private ServiceProcess? service;
     private IPlaywright? playwright;
 
@@ -27,11 +24,11 @@ public sealed class LiveService : IAsyncLifetime
     /// <summary>Why the browser tests did not run, or null when they do.</summary>
     public static string? SkipReason => ChromiumInstalled ? null : $"SKIPPED (not a failure): {ChromiumPath} not found; install Debian's chromium (apt-get install -y chromium) to run the browser tests.";
 
-    public Uri BaseAddress { get; private set; } = new("http://127.0.0.1/");
+    public Uri BaseAddress => service?.BaseAddress ?? new Uri("http://127.0.0.1/");
 
     public IBrowser Browser { get; private set; } = null!;
 
-    public HttpClient Http { get; private set; } = null!;
+    public HttpClient Http => service?.Http ?? throw new InvalidOperationException("the service is not running");
 
     /// <summary>Where screenshots and PDFs are kept: TestResults/browser under the test output folder.</summary>
     public static string ArtifactFolder { get; } = Directory.CreateDirectory(Path.Combine(AppContext.BaseDirectory, "TestResults", "browser")).FullName;
@@ -41,13 +38,7 @@ public sealed class LiveService : IAsyncLifetime
         if (!ChromiumInstalled)
             return;
 
-        Directory.CreateDirectory(folder);
-        service = ServiceProcess.Start(folder,
-            [$"--Storage:ConnectionString=Data Source={Path.Combine(folder, "qaservice.db")}", "--Demo:Enabled=true", "--Serilog:MinimumLevel:Default=Warning"]);
-        BaseAddress = service.BaseAddress;
-        Http = new HttpClient { BaseAddress = BaseAddress };
-        await service.WaitUntilReadyAsync(Http, StartupTimeout);
-
+        service = await ServiceProcess.StartAsync(new Dictionary<string, string> { ["Demo:Enabled"] = "true" });
         playwright = await Playwright.CreateAsync();
         Browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions { ExecutablePath = ChromiumPath, Headless = true, Args = ChromiumArgs });
     }
@@ -57,17 +48,8 @@ public sealed class LiveService : IAsyncLifetime
         if (Browser is not null)
             await Browser.CloseAsync();
         playwright?.Dispose();
-        Http?.Dispose();
         if (service is not null)
             await service.DisposeAsync();
-        try
-        {
-            Directory.Delete(folder, recursive: true);
-        }
-        catch (IOException)
-        {
-            // A leftover temp folder is harmless.
-        }
     }
 }
 

@@ -1,81 +1,97 @@
-using System.Collections.Concurrent;
 using System.Diagnostics;
 using System.Net;
 using System.Net.Sockets;
+using System.Text;
 
 namespace QaService.Tests.Shared;
 
 /// <summary>
-/// The built service (src/QaService.Api/bin/&lt;configuration&gt;/&lt;tfm&gt;/QaService.Api.dll) as a child process on a
-/// free 127.0.0.1 port, with its output kept. Shared by the browser tests and the API tests' start-up tests (linked
-/// source file), so there is one way to start a real instance.
+/// The built service (src/QaService.Api/bin/&lt;configuration&gt;/&lt;tfm&gt;/QaService.Api.dll) started as a child
+/// process on a free 127.0.0.1 port, with its own SQLite file in a temporary folder; stopped and cleaned up on
+/// dispose. Used where an in-memory host will not do: a browser, or a Node client in another process.
+/// Linked into each test project that needs it (tests/Shared), so there is one copy.
 /// </summary>
 public sealed class ServiceProcess : IAsyncDisposable
 {
-    private readonly Process process;
-    private readonly ConcurrentQueue<string> output = new();
+    /// <summary>Generous: instances start slowly on a loaded 2-core machine.</summary>
+    private static readonly TimeSpan StartupTimeout = TimeSpan.FromSeconds(90);
 
-    private ServiceProcess(Process process, Uri baseAddress)
+    private readonly string folder = Path.Combine(Path.GetTempPath(), $"qaservice-process-{Guid.NewGuid():N}");
+    private readonly StringBuilder log = new();
+    private Process? service;
+
+    private ServiceProcess(Uri baseAddress)
     {
-        this.process = process;
         BaseAddress = baseAddress;
+        Http = new HttpClient { BaseAddress = baseAddress };
     }
 
     public Uri BaseAddress { get; }
 
-    public bool HasExited => process.HasExited;
+    /// <summary>A client for the service's base address (no authorization header).</summary>
+    public HttpClient Http { get; }
 
-    public int ExitCode => process.ExitCode;
-
-    /// <summary>Every line written to stdout and stderr so far.</summary>
-    public IReadOnlyList<string> Output => [.. output];
-
-    /// <summary>Starts <c>dotnet QaService.Api.dll --urls http://127.0.0.1:PORT</c> plus <paramref name="arguments"/> in <paramref name="workingFolder"/>.</summary>
-    public static ServiceProcess Start(string workingFolder, IEnumerable<string> arguments)
+    /// <summary>What the service wrote to stdout and stderr so far (for failure messages).</summary>
+    public string Log
     {
-        var baseAddress = new Uri($"http://127.0.0.1:{FreePort()}/");
-        var start = new ProcessStartInfo("dotnet") { WorkingDirectory = workingFolder, RedirectStandardOutput = true, RedirectStandardError = true };
-        foreach (var arg in new[] { ServiceAssembly(), "--urls", baseAddress.ToString().TrimEnd('/') }.Concat(arguments))
-            start.ArgumentList.Add(arg);
-        var process = Process.Start(start) ?? throw new InvalidOperationException("the service process did not start");
-        var service = new ServiceProcess(process, baseAddress);
-        process.OutputDataReceived += (_, line) => { if (line.Data is not null) service.output.Enqueue(line.Data); };
-        process.ErrorDataReceived += (_, line) => { if (line.Data is not null) service.output.Enqueue(line.Data); };
-        process.BeginOutputReadLine();
-        process.BeginErrorReadLine();
-        return service;
-    }
-
-    /// <summary>Waits until <c>/readyz</c> answers 200; throws with the output if the process exits or the time runs out.</summary>
-    public async Task WaitUntilReadyAsync(HttpClient http, TimeSpan timeout)
-    {
-        var deadline = DateTime.UtcNow + timeout;
-        while (DateTime.UtcNow < deadline)
+        get
         {
-            if (process.HasExited)
-                throw new InvalidOperationException($"the service exited with code {process.ExitCode} before serving:\n{string.Join('\n', Output)}");
-            try
-            {
-                if ((await http.GetAsync(new Uri(BaseAddress, "readyz"))).IsSuccessStatusCode)
-                    return;
-            }
-            catch (HttpRequestException)
-            {
-                // Not listening yet.
-            }
-            await Task.Delay(200);
+            lock (log)
+                return log.ToString();
         }
-        throw new TimeoutException($"the service did not answer /readyz within {timeout.TotalSeconds} s:\n{string.Join('\n', Output)}");
     }
 
-    /// <summary>Waits for the process to exit by itself; false when it is still running after <paramref name="timeout"/>.</summary>
+    /// <summary>Starts the service with <paramref name="settings"/> as <c>--Key=value</c> arguments and waits for /readyz.</summary>
+    public static async Task<ServiceProcess> StartAsync(IReadOnlyDictionary<string, string>? settings = null)
+    {
+        var process = new ServiceProcess(new Uri($"http://127.0.0.1:{FreePort()}/"));
+        try
+        {
+            await process.LaunchAsync(settings ?? new Dictionary<string, string>());
+            return process;
+        }
+        catch
+        {
+            await process.DisposeAsync();
+            throw;
+        }
+    }
+
+    /// <summary>The repository root: the folder above the test output that holds QaService.sln.</summary>
+    public static string RepositoryRoot()
+    {
+        var root = new DirectoryInfo(AppContext.BaseDirectory);
+        while (root is not null && !File.Exists(Path.Combine(root.FullName, "QaService.sln")))
+            root = root.Parent;
+        return root?.FullName ?? throw new InvalidOperationException("QaService.sln not found above the test output folder");
+    }
+
+    /// <summary>
+    /// Starts the service without waiting for it (instances started at the same moment, or one expected to exit);
+    /// follow with <see cref="WaitUntilReadyAsync"/> or <see cref="WaitForExitAsync"/>.
+    /// </summary>
+    public static ServiceProcess Launch(IReadOnlyDictionary<string, string>? settings = null)
+    {
+        var process = new ServiceProcess(new Uri($"http://127.0.0.1:{FreePort()}/"));
+        process.Spawn(settings ?? new Dictionary<string, string>());
+        return process;
+    }
+
+    public bool HasExited => service!.HasExited;
+
+    public int ExitCode => service!.ExitCode;
+
+    /// <summary>Waits until /readyz answers 200; throws with the log if the process exits first or does not answer in time.</summary>
+    public Task WaitUntilReadyAsync() => WaitUntilServingAsync();
+
+    /// <summary>Waits for the process to end by itself; false when it still runs after <paramref name="timeout"/>.</summary>
     public async Task<bool> WaitForExitAsync(TimeSpan timeout)
     {
         using var limit = new CancellationTokenSource(timeout);
         try
         {
-            await process.WaitForExitAsync(limit.Token);
-            process.WaitForExit(); // drains the redirected output
+            await service!.WaitForExitAsync(limit.Token);
+            service.WaitForExit(); // drains the redirected output
             return true;
         }
         catch (OperationCanceledException)
@@ -84,27 +100,70 @@ public sealed class ServiceProcess : IAsyncDisposable
         }
     }
 
-    public async ValueTask DisposeAsync()
+    private async Task LaunchAsync(IReadOnlyDictionary<string, string> settings)
     {
-        if (!process.HasExited)
-        {
-            process.Kill(entireProcessTree: true);
-            await process.WaitForExitAsync();
-        }
-        process.Dispose();
+        Spawn(settings);
+        await WaitUntilServingAsync();
     }
 
-    /// <summary>The service built beside the test project (the same configuration and target framework).</summary>
+    private void Spawn(IReadOnlyDictionary<string, string> settings)
+    {
+        Directory.CreateDirectory(folder);
+        var start = new ProcessStartInfo("dotnet") { WorkingDirectory = folder, RedirectStandardOutput = true, RedirectStandardError = true };
+        start.ArgumentList.Add(ServiceAssembly());
+        start.ArgumentList.Add("--urls");
+        start.ArgumentList.Add(BaseAddress.ToString().TrimEnd('/'));
+        var arguments = new Dictionary<string, string>
+        {
+            ["Storage:ConnectionString"] = $"Data Source={Path.Combine(folder, "qaservice.db")}",
+            ["Serilog:MinimumLevel:Default"] = "Warning",
+        };
+        foreach (var (key, value) in settings)
+            arguments[key] = value;
+        foreach (var (key, value) in arguments)
+            start.ArgumentList.Add($"--{key}={value}");
+
+        service = Process.Start(start) ?? throw new InvalidOperationException("the service process did not start");
+        service.OutputDataReceived += (_, e) => Append(e.Data);
+        service.ErrorDataReceived += (_, e) => Append(e.Data);
+        service.BeginOutputReadLine();
+        service.BeginErrorReadLine();
+    }
+
+    private void Append(string? line)
+    {
+        if (line is null)
+            return;
+        lock (log)
+            log.AppendLine(line);
+    }
+
+    public async ValueTask DisposeAsync()
+    {
+        Http.Dispose();
+        if (service is { HasExited: false })
+        {
+            service.Kill(entireProcessTree: true);
+            await service.WaitForExitAsync();
+        }
+
+        service?.Dispose();
+        try
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+        catch (IOException)
+        {
+            // A leftover temp folder is harmless.
+        }
+    }
+
+    /// <summary>The service built beside the test project: same configuration and target framework folder names.</summary>
     private static string ServiceAssembly()
     {
         var here = new DirectoryInfo(AppContext.BaseDirectory);
         string tfm = here.Name, configuration = here.Parent!.Name;
-        var root = here;
-        while (root is not null && !File.Exists(Path.Combine(root.FullName, "QaService.sln")))
-            root = root.Parent;
-        if (root is null)
-            throw new InvalidOperationException("QaService.sln not found above the test output folder");
-        var dll = Path.Combine(root.FullName, "src", "QaService.Api", "bin", configuration, tfm, "QaService.Api.dll");
+        var dll = Path.Combine(RepositoryRoot(), "src", "QaService.Api", "bin", configuration, tfm, "QaService.Api.dll");
         return File.Exists(dll) ? dll : throw new FileNotFoundException("build the solution first", dll);
     }
 
@@ -113,5 +172,28 @@ public sealed class ServiceProcess : IAsyncDisposable
         using var listener = new TcpListener(IPAddress.Loopback, 0);
         listener.Start();
         return ((IPEndPoint)listener.LocalEndpoint).Port;
+    }
+
+    private async Task WaitUntilServingAsync()
+    {
+        var deadline = DateTime.UtcNow + StartupTimeout;
+        while (DateTime.UtcNow < deadline)
+        {
+            if (service!.HasExited)
+                throw new InvalidOperationException($"the service exited with code {service.ExitCode} before serving:\n{Log}");
+            try
+            {
+                if ((await Http.GetAsync("readyz")).IsSuccessStatusCode)
+                    return;
+            }
+            catch (HttpRequestException)
+            {
+                // Not listening yet.
+            }
+
+            await Task.Delay(200);
+        }
+
+        throw new TimeoutException($"the service did not answer /readyz within {StartupTimeout.TotalSeconds} s:\n{Log}");
     }
 }
