@@ -8,15 +8,20 @@ using QaService.Api.Security;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
 
+StartupErrors.ExitOnConfigurationError();
+
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
 builder.AddQaService();
 
 var app = builder.Build();
+app.ValidateConfiguration();
 app.UseQaServicePipeline();
 app.MapHome();
 app.MapHealth();
 app.MapAssessments();
+app.MapListing();
+app.MapListPage();
 app.MapReports();
 app.MapTransform();
 app.MapCrs();

@@ -50,11 +50,13 @@ internal static class ServiceSetup
 
         builder.Services.AddSingleton(TimeProvider.System);
         builder.Services.AddHttpContextAccessor();
+        builder.Services.AddAntiforgery();
         builder.Services.AddSingleton<ITenantContext, HttpTenantContext>();
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
         builder.Services.AddSingleton<QaMetrics>();
         builder.Services.AddSingleton<MultipartUploadReader>();
         builder.Services.AddHostedService<StartupTasks>();
+        builder.Services.AddHostedService<RetentionPurge>();
         builder.Services.AddHostedService<ExposureWarning>();
         builder.Services.AddHostedService<WarmUp.CodeWarmUp>();
 
@@ -95,6 +97,7 @@ internal static class ServiceSetup
         app.UseRequestTimeouts();
         app.UseMiddleware<TenantResolutionMiddleware>();
         app.UseRateLimiter();
+        app.UseAntiforgery();
 
         app.MapPrometheusScrapingEndpoint("/metrics");
         app.MapOpenApi();

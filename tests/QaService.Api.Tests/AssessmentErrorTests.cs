@@ -231,7 +231,8 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
 
     [Fact]
     public async Task Wrong_method_is_405_problem() =>
-        await ProblemAssert.IsProblemAsync(await client.DeleteAsync("/v1/assessments/abc"), HttpStatusCode.MethodNotAllowed);
+        // DELETE exists (ListingApi); PUT does not: a stored report is never replaced.
+        await ProblemAssert.IsProblemAsync(await client.PutAsync("/v1/assessments/abc", new StringContent("{}")), HttpStatusCode.MethodNotAllowed);
 
     [Theory]
     [InlineData(500000.0, 1e15, "/marks/points/0/n")]

@@ -13,7 +13,8 @@ namespace QaService.Tests.Shared;
 /// </summary>
 public sealed class ServiceProcess : IAsyncDisposable
 {
-    private static readonly TimeSpan StartupTimeout = TimeSpan.FromSeconds(60);
+    /// <summary>Generous: instances start slowly on a loaded 2-core machine.</summary>
+    private static readonly TimeSpan StartupTimeout = TimeSpan.FromSeconds(90);
 
     private readonly string folder = Path.Combine(Path.GetTempPath(), $"qaservice-process-{Guid.NewGuid():N}");
     private readonly StringBuilder log = new();
@@ -65,7 +66,47 @@ public sealed class ServiceProcess : IAsyncDisposable
         return root?.FullName ?? throw new InvalidOperationException("QaService.sln not found above the test output folder");
     }
 
+    /// <summary>
+    /// Starts the service without waiting for it (instances started at the same moment, or one expected to exit);
+    /// follow with <see cref="WaitUntilReadyAsync"/> or <see cref="WaitForExitAsync"/>.
+    /// </summary>
+    public static ServiceProcess Launch(IReadOnlyDictionary<string, string>? settings = null)
+    {
+        var process = new ServiceProcess(new Uri($"http://127.0.0.1:{FreePort()}/"));
+        process.Spawn(settings ?? new Dictionary<string, string>());
+        return process;
+    }
+
+    public bool HasExited => service!.HasExited;
+
+    public int ExitCode => service!.ExitCode;
+
+    /// <summary>Waits until /readyz answers 200; throws with the log if the process exits first or does not answer in time.</summary>
+    public Task WaitUntilReadyAsync() => WaitUntilServingAsync();
+
+    /// <summary>Waits for the process to end by itself; false when it still runs after <paramref name="timeout"/>.</summary>
+    public async Task<bool> WaitForExitAsync(TimeSpan timeout)
+    {
+        using var limit = new CancellationTokenSource(timeout);
+        try
+        {
+            await service!.WaitForExitAsync(limit.Token);
+            service.WaitForExit(); // drains the redirected output
+            return true;
+        }
+        catch (OperationCanceledException)
+        {
+            return false;
+        }
+    }
+
     private async Task LaunchAsync(IReadOnlyDictionary<string, string> settings)
+    {
+        Spawn(settings);
+        await WaitUntilServingAsync();
+    }
+
+    private void Spawn(IReadOnlyDictionary<string, string> settings)
     {
         Directory.CreateDirectory(folder);
         var start = new ProcessStartInfo("dotnet") { WorkingDirectory = folder, RedirectStandardOutput = true, RedirectStandardError = true };
@@ -87,7 +128,6 @@ public sealed class ServiceProcess : IAsyncDisposable
         service.ErrorDataReceived += (_, e) => Append(e.Data);
         service.BeginOutputReadLine();
         service.BeginErrorReadLine();
-        await WaitUntilServingAsync();
     }
 
     private void Append(string? line)

@@ -132,24 +132,11 @@ internal static class AssessmentsApi
             : new JsonStreamResult(json, StatusCodes.Status200OK, null);
     }
 
-    /// <summary>
-    /// Serialises once and stores those bytes, so POST and every later GET return the same JSON. Returns the
-    /// serialised bytes, positioned at their start, for the response (the caller disposes them).
-    /// </summary>
-    internal static async Task<Stream> StoreAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
+    /// <summary>Serialises the report and stores it unless the tenant already has that id; true when stored.</summary>
+    internal static async Task<bool> StoreIfAbsentAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
     {
-        var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
-        try
-        {
-            await store.SaveAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
-            json.Position = 0;
-            return json;
-        }
-        catch
-        {
-            await json.DisposeAsync();
-            throw;
-        }
+        await using var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
+        return await store.SaveIfAbsentAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
     }
 
     /// <summary>The verdict as the report's JSON spells it (<c>pass</c>, <c>fail</c>, <c>inconclusive</c>).</summary>

@@ -10,7 +10,8 @@ namespace QaService.Api.Demo;
 
 /// <summary>
 /// Runs before the server listens: creates the storage schema, then stores the demo report
-/// (an invented scenario: Millbrook Ferry Water Cooperative's hydrants) if it is missing.
+/// (an invented scenario: Millbrook Ferry Water Cooperative's hydrants) if it is missing. The local tenant may
+/// delete the demo; it is stored again at the next start (set <c>Demo:Enabled</c> to false to keep it gone).
 /// </summary>
 internal sealed class StartupTasks(IReportStore store, IOptions<DemoOptions> demo, TimeProvider clock, ILogger<StartupTasks> logger) : IHostedService
 {
@@ -30,8 +31,9 @@ internal sealed class StartupTasks(IReportStore store, IOptions<DemoOptions> dem
             throw new InvalidOperationException($"the demo request is invalid: {outcome.Errors[0].Pointer} {outcome.Errors[0].Message}");
 
         var report = AssessmentRunner.Run(outcome.Assessment, DemoOptions.ReportId, clock.GetUtcNow());
-        await (await AssessmentsApi.StoreAsync(store, Tenants.Local, report, cancellationToken)).DisposeAsync();
-        StartupLog.DemoStored(logger, DemoOptions.ReportId, report.Verdict.ToString());
+        // Insert-if-absent: another instance starting at the same moment may have stored it since the check above.
+        if (await AssessmentsApi.StoreIfAbsentAsync(store, Tenants.Local, report, cancellationToken))
+            StartupLog.DemoStored(logger, DemoOptions.ReportId, report.Verdict.ToString());
     }
 
     public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;

@@ -58,6 +58,7 @@ internal static class HomePage
         }
 
         html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
+            .Append($"<li><a href=\"{ReportListPage.Path}\">All assessments</a>: filter, page through, delete</li>")
             .Append("<li><a href=\"/swagger\">API explorer</a> and the <a href=\"/openapi/v1.json\">OpenAPI document</a></li>")
             .Append("<li><a href=\"/v1/assessments/demo/report.html\">the demo report</a> (invented data) · <a href=\"/healthz\">/healthz</a> · <a href=\"/readyz\">/readyz</a></li></ul></section>");
         PageShell.Close(html, "Reports are statistical accuracy tests of submitted positions, not survey certifications.");

@@ -37,11 +37,33 @@ public interface IReportStore
         await FindJsonAsync(tenant, id, cancellationToken) is { } json ? new MemoryStream(Encoding.UTF8.GetBytes(json), writable: false) : null;
 
     /// <summary>
-    /// The tenant's newest reports first (id, time, title, verdict; no JSON), at most <paramref name="limit"/>.
-    /// The default (an empty list) keeps stores and test doubles that do not list compiling.
+    /// Stores the report unless the tenant already has one with that id (INSERT ... ON CONFLICT DO NOTHING), in one
+    /// statement, so instances starting together can both store the demo. True when this call stored it.
     /// </summary>
-    Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken) =>
-        Task.FromResult<IReadOnlyList<ReportSummary>>([]);
+    Task<bool> SaveIfAbsentAsync(ReportHeader header, Stream json, CancellationToken cancellationToken) =>
+        throw new NotSupportedException($"{GetType().Name} cannot store a report only if it is absent");
+
+    /// <summary>
+    /// One page of the tenant's reports, newest first (created_at DESC, id DESC; no JSON). The one listing path: the
+    /// API, the list page and the home page's recent list all read through it. The default (an empty page) keeps
+    /// test doubles that do not list compiling.
+    /// </summary>
+    Task<ReportSummaryPage> ListAsync(ReportListQuery query, CancellationToken cancellationToken) => Task.FromResult(ReportSummaryPage.Empty);
+
+    /// <summary>The tenant's newest reports first, at most <paramref name="limit"/> (the first page of <see cref="ListAsync"/>).</summary>
+    async Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken) =>
+        (await ListAsync(new ReportListQuery(tenant, limit), cancellationToken)).Items;
+
+    /// <summary>Deletes the tenant's report; false when the tenant has no report with that id.</summary>
+    Task<bool> DeleteAsync(string tenant, string id, CancellationToken cancellationToken) =>
+        throw new NotSupportedException($"{GetType().Name} cannot delete reports");
+
+    /// <summary>
+    /// Deletes at most <paramref name="batchSize"/> reports of any tenant created before <paramref name="cutoff"/>, in one
+    /// short transaction; returns how many. Callers repeat until fewer than a batch come back (retention).
+    /// </summary>
+    Task<int> DeleteCreatedBeforeAsync(DateTimeOffset cutoff, int batchSize, CancellationToken cancellationToken) =>
+        throw new NotSupportedException($"{GetType().Name} cannot delete reports");
 
     /// <summary>True when the store answers a trivial query.</summary>
     Task<bool> IsReachableAsync(CancellationToken cancellationToken);

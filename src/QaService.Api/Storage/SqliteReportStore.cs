@@ -130,23 +130,124 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         }
     }
 
-    public async Task<IReadOnlyList<ReportSummary>> ListRecentAsync(string tenant, int limit, CancellationToken cancellationToken)
+    /// <summary>
+    /// Keyset page on the index (tenant, created_at DESC, id DESC). created_at is ISO 8601 text written by one format
+    /// ("O", UTC, 7 fraction digits), so text order is time order and bounds compare as text. <c>q</c> uses SQLite's LIKE,
+    /// which folds case for ASCII letters only (https://sqlite.org/lang_expr.html#like).
+    /// </summary>
+    public async Task<ReportSummaryPage> ListAsync(ReportListQuery query, CancellationToken cancellationToken)
     {
         await using var connection = await OpenAsync(cancellationToken);
         await using var command = connection.CreateCommand();
-        command.CommandText = "SELECT id, created_at, title, verdict FROM reports WHERE tenant = $tenant ORDER BY created_at DESC, id LIMIT $limit";
-        command.Parameters.AddWithValue("$tenant", tenant);
-        command.Parameters.AddWithValue("$limit", limit);
-        var list = new List<ReportSummary>();
+        var sql = new System.Text.StringBuilder("SELECT id, created_at, title, verdict FROM reports WHERE tenant = $tenant");
+        command.Parameters.AddWithValue("$tenant", query.Tenant);
+        if (query.After is { } after)
+        {
+            sql.Append(" AND (created_at, id) < ($afterCreated, $afterId)");
+            command.Parameters.AddWithValue("$afterCreated", TimeText(after.CreatedAt));
+            command.Parameters.AddWithValue("$afterId", after.Id);
+        }
+        if (query.Verdict is not null)
+        {
+            sql.Append(" AND verdict = $verdict");
+            command.Parameters.AddWithValue("$verdict", query.Verdict);
+        }
+        if (query.TitleContains is not null)
+        {
+            sql.Append(" AND title LIKE $title ESCAPE '\\'");
+            command.Parameters.AddWithValue("$title", LikePattern.Containing(query.TitleContains));
+        }
+        if (query.From is { } from)
+        {
+            sql.Append(" AND created_at >= $from");
+            command.Parameters.AddWithValue("$from", TimeText(from));
+        }
+        if (query.To is { } to)
+        {
+            sql.Append(" AND created_at < $to");
+            command.Parameters.AddWithValue("$to", TimeText(to));
+        }
+        sql.Append(" ORDER BY created_at DESC, id DESC LIMIT $limit");
+        command.Parameters.AddWithValue("$limit", query.Limit + 1);
+        command.CommandText = sql.ToString();
+
+        var rows = new List<ReportSummary>(query.Limit + 1);
         await using var reader = await command.ExecuteReaderAsync(cancellationToken);
         while (await reader.ReadAsync(cancellationToken))
         {
             var created = DateTimeOffset.Parse(reader.GetString(1), System.Globalization.CultureInfo.InvariantCulture, System.Globalization.DateTimeStyles.AssumeUniversal);
-            list.Add(new ReportSummary(reader.GetString(0), created, reader.IsDBNull(2) ? null : reader.GetString(2), reader.GetString(3)));
+            rows.Add(new ReportSummary(reader.GetString(0), created, reader.IsDBNull(2) ? null : reader.GetString(2), reader.GetString(3)));
         }
-
-        return list;
+        return ReportSummaryPage.FromRows(rows, query.Limit);
     }
+
+    /// <summary>Through the group commit's write lock, so a delete never waits in SQLite's busy-retry sleeps.</summary>
+    public async Task<bool> DeleteAsync(string tenant, string id, CancellationToken cancellationToken)
+    {
+        await writeLock.WaitAsync(cancellationToken);
+        try
+        {
+            await using var connection = await OpenAsync(cancellationToken);
+            await using var command = connection.CreateCommand();
+            command.CommandText = "DELETE FROM reports WHERE tenant = $tenant AND id = $id";
+            command.Parameters.AddWithValue("$tenant", tenant);
+            command.Parameters.AddWithValue("$id", id);
+            return await command.ExecuteNonQueryAsync(cancellationToken) > 0;
+        }
+        finally
+        {
+            writeLock.Release();
+        }
+    }
+
+    public async Task<int> DeleteCreatedBeforeAsync(DateTimeOffset cutoff, int batchSize, CancellationToken cancellationToken)
+    {
+        await writeLock.WaitAsync(cancellationToken);
+        try
+        {
+            await using var connection = await OpenAsync(cancellationToken);
+            await using var command = connection.CreateCommand();
+            command.CommandText = "DELETE FROM reports WHERE rowid IN (SELECT rowid FROM reports WHERE created_at < $cutoff LIMIT $batch)";
+            command.Parameters.AddWithValue("$cutoff", TimeText(cutoff));
+            command.Parameters.AddWithValue("$batch", batchSize);
+            var deleted = await command.ExecuteNonQueryAsync(cancellationToken);
+            // Freed pages go through the WAL too; let the background checkpoint count them (a page per row, roughly).
+            checkpoints.Committed(deleted * 4096L);
+            return deleted;
+        }
+        finally
+        {
+            writeLock.Release();
+        }
+    }
+
+    /// <summary>INSERT ... ON CONFLICT DO NOTHING (SQLite upsert, https://sqlite.org/lang_upsert.html): one statement, no race.</summary>
+    public async Task<bool> SaveIfAbsentAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
+    {
+        using var text = new StreamReader(json, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: false, leaveOpen: true);
+        var body = await text.ReadToEndAsync(cancellationToken);
+        await writeLock.WaitAsync(cancellationToken);
+        try
+        {
+            await using var connection = await OpenAsync(cancellationToken);
+            await using var command = connection.CreateCommand();
+            command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, $json) ON CONFLICT (tenant, id) DO NOTHING";
+            command.Parameters.AddWithValue("$tenant", header.Tenant);
+            command.Parameters.AddWithValue("$id", header.Id);
+            command.Parameters.AddWithValue("$created", TimeText(header.CreatedAt));
+            command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
+            command.Parameters.AddWithValue("$verdict", header.Verdict);
+            command.Parameters.AddWithValue("$json", body);
+            return await command.ExecuteNonQueryAsync(cancellationToken) == 1;
+        }
+        finally
+        {
+            writeLock.Release();
+        }
+    }
+
+    /// <summary>created_at as stored: ISO 8601 UTC with 7 fraction digits, so text order is time order.</summary>
+    private static string TimeText(DateTimeOffset time) => time.UtcDateTime.ToString("O", System.Globalization.CultureInfo.InvariantCulture);
 
     public async Task<bool> IsReachableAsync(CancellationToken cancellationToken)
     {

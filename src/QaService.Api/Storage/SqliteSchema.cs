@@ -31,6 +31,11 @@ internal static class SqliteSchema
             created_at TEXT NOT NULL
         );
         """,
+        // 3: the keyset listing (GET /v1/assessments): newest first within a tenant, id breaking ties; verdict and title
+        // ride along so a filtered list (q=, verdict=) is answered from the index without a row lookup per report.
+        """
+        CREATE INDEX reports_tenant_created ON reports (tenant, created_at DESC, id DESC, verdict, title);
+        """,
     ];
 
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)

@@ -17,6 +17,10 @@ public sealed class StorageOptions
     /// <summary>ADO.NET connection string; default: SQLite file <c>data/qaservice.db</c> under the working folder. Required for postgres.</summary>
     public string? ConnectionString { get; set; }
 
+    /// <summary>Reports older than this many days are deleted (at start, then hourly); unset keeps them forever.</summary>
+    [Range(1, 365_000, ErrorMessage = "Storage:RetentionDays must be a whole number of days from 1 to 365000 (leave it unset to keep reports forever)")]
+    public int? RetentionDays { get; set; }
+
     public bool IsPostgres => string.Equals(Provider, PostgresProvider, StringComparison.OrdinalIgnoreCase);
 
     /// <summary>The connection string in force.</summary>

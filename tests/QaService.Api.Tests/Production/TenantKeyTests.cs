@@ -13,6 +13,8 @@ public sealed class TenantKeyTests(KeysHost host) : IClassFixture<KeysHost>
     [Theory]
     [InlineData("POST", "/v1/assessments")]
     [InlineData("GET", "/v1/assessments/demo")]
+    [InlineData("GET", "/v1/assessments")]
+    [InlineData("DELETE", "/v1/assessments/demo")]
     [InlineData("POST", "/v1/transform")]
     [InlineData("GET", "/v1/crs?q=utm")]
     public async Task Anonymous_calls_get_401_problem_with_a_bearer_challenge(string method, string path)
@@ -71,6 +73,23 @@ public sealed class TenantKeyTests(KeysHost host) : IClassFixture<KeysHost>
             var unknown = await host.Client(south).GetAsync(path.Replace(location, "/v1/assessments/AAAAAAAAAAAAAAAAAAAAAA"));
             Assert.Equal(HttpStatusCode.NotFound, unknown.StatusCode);
         }
+    }
+
+    [Fact]
+    public async Task Another_tenant_neither_lists_nor_deletes_a_report()
+    {
+        var (_, north) = await host.CreateTenantAsync();
+        var (_, south) = await host.CreateTenantAsync();
+        var created = await host.Client(north).PostJsonAsync(Requests.Minimal());
+        Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+        var location = created.Headers.Location!.OriginalString;
+        var id = location.Split('/')[^1];
+
+        Assert.Equal([id], (await ListingScenarios.PageAsync(host.Client(north), "/v1/assessments")).Items);
+        Assert.Empty((await ListingScenarios.PageAsync(host.Client(south), "/v1/assessments")).Items);
+        await ProblemAssert.IsProblemAsync(await host.Client(south).DeleteAsync(location), HttpStatusCode.NotFound);
+        Assert.Equal(HttpStatusCode.OK, (await host.Client(north).GetAsync(location)).StatusCode);
+        Assert.Equal(HttpStatusCode.NoContent, (await host.Client(north).DeleteAsync(location)).StatusCode);
     }
 
     /// <summary>Every path under an assessment that returns its data.</summary>
