@@ -35,6 +35,22 @@ internal static class PostgresSchema
             created_at timestamptz NOT NULL
         );
         """,
+        // 3: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key).
+        """
+        CREATE TABLE share_links (
+            id         text        NOT NULL PRIMARY KEY,
+            token_hash text        NOT NULL UNIQUE,
+            tenant     text        NOT NULL,
+            report_id  text        NOT NULL,
+            created_at timestamptz NOT NULL,
+            expires_at timestamptz NOT NULL
+        );
+        CREATE INDEX share_links_report ON share_links (tenant, report_id);
+        CREATE TABLE service_secrets (
+            name  text NOT NULL PRIMARY KEY,
+            value text NOT NULL
+        );
+        """,
     ];
 
     public static async Task MigrateAsync(NpgsqlDataSource dataSource, CancellationToken cancellationToken)
