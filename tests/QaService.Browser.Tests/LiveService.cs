@@ -10,7 +10,7 @@ namespace QaService.Browser.Tests;
 /// headless Debian Chromium driven by Playwright. A browser cannot reach an in-memory test server, hence the process.
 /// When Chromium is not installed the tests say so and return (xunit 2.9 has no dynamic skip); CI installs it.
 /// </summary>
-public sealed class LiveService : IAsyncLifetime
+public class LiveService : IAsyncLifetime
 {
     /// <summary>Debian's package <c>chromium</c>; never a browser downloaded by Playwright.</summary>
     public const string ChromiumPath = "/usr/bin/chromium";
@@ -38,6 +38,9 @@ public sealed class LiveService : IAsyncLifetime
     /// <summary>Where screenshots and PDFs are kept: TestResults/browser under the test output folder.</summary>
     public static string ArtifactFolder { get; } = Directory.CreateDirectory(Path.Combine(AppContext.BaseDirectory, "TestResults", "browser")).FullName;
 
+    /// <summary>More command-line settings for the service (a subclass starts it in another mode).</summary>
+    protected virtual IEnumerable<string> Settings => [];
+
     public async Task InitializeAsync()
     {
         if (!ChromiumInstalled)
@@ -57,7 +60,7 @@ public sealed class LiveService : IAsyncLifetime
                      ServiceAssembly(), "--urls", BaseAddress.ToString().TrimEnd('/'),
                      $"--Storage:ConnectionString=Data Source={Path.Combine(folder, "qaservice.db")}",
                      "--Demo:Enabled=true", "--Serilog:MinimumLevel:Default=Warning",
-                 })
+                 }.Concat(Settings))
             start.ArgumentList.Add(arg);
         service = Process.Start(start) ?? throw new InvalidOperationException("the service process did not start");
         service.OutputDataReceived += (_, _) => { };
