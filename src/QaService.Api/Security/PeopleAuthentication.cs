@@ -57,6 +57,7 @@ internal static class PeopleAuthentication
             });
         }
 
+        DatabaseKeyRing.Register(services);
         services.AddAntiforgery(options =>
         {
             options.HeaderName = AntiforgeryHeader;

@@ -17,6 +17,9 @@ public interface IShareLinkStore
 
     /// <summary>The secret stored under <paramref name="name"/>; stores <paramref name="candidate"/> first if there is none (the first instance wins).</summary>
     Task<string> GetOrAddSecretAsync(string name, string candidate, CancellationToken cancellationToken);
+
+    /// <summary>Every secret whose name starts with <paramref name="prefix"/> (the Data Protection key ring).</summary>
+    Task<IReadOnlyList<string>> ListSecretsAsync(string prefix, CancellationToken cancellationToken);
 }
 
 /// <summary>One share link row. <paramref name="TokenHash"/> is lower-case hex SHA-256 of the link's token.</summary>

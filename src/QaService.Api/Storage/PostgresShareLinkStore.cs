@@ -51,4 +51,15 @@ internal sealed class PostgresShareLinkStore(NpgsqlDataSource dataSource) : ISha
         select.Parameters.Add(new NpgsqlParameter { Value = name });
         return (string)(await select.ExecuteScalarAsync(cancellationToken))!;
     }
+
+    public async Task<IReadOnlyList<string>> ListSecretsAsync(string prefix, CancellationToken cancellationToken)
+    {
+        await using var command = dataSource.CreateCommand("SELECT value FROM service_secrets WHERE left(name, length($1)) = $1 ORDER BY name");
+        command.Parameters.Add(new NpgsqlParameter { Value = prefix });
+        var values = new List<string>();
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken))
+            values.Add(reader.GetString(0));
+        return values;
+    }
 }

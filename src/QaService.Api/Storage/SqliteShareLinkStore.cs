@@ -63,6 +63,19 @@ internal sealed class SqliteShareLinkStore(IOptions<StorageOptions> options) : I
         return (string)(await command.ExecuteScalarAsync(cancellationToken))!;
     }
 
+    public async Task<IReadOnlyList<string>> ListSecretsAsync(string prefix, CancellationToken cancellationToken)
+    {
+        await using var connection = await SqliteConnections.OpenAsync(connectionString, cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT value FROM service_secrets WHERE substr(name, 1, length($prefix)) = $prefix ORDER BY name";
+        command.Parameters.AddWithValue("$prefix", prefix);
+        var values = new List<string>();
+        await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken))
+            values.Add(reader.GetString(0));
+        return values;
+    }
+
     private static string Text(DateTimeOffset time) => time.UtcDateTime.ToString("O", CultureInfo.InvariantCulture);
 
     private static DateTimeOffset Time(string text) => DateTimeOffset.Parse(text, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal);

@@ -193,4 +193,28 @@ public sealed class SignInTests(KeysHost host) : IClassFixture<KeysHost>
     private static MultipartFormDataContent CaseZeroUpload() => Uploads.Form(
         """{ "marks": { "crs": "EPSG:32633", "heights": "ellipsoidal" }, "fixes": { "heights": "ellipsoidal" }, "spec": { "standard": "nssda", "horizontal": 1.0, "vertical": 1.0 } }""",
         Uploads.FieldFile("case0-marks.csv"), Uploads.FieldFile("case0-fixes.geojson"));
+
+    [Fact]
+    public async Task A_session_made_on_one_instance_is_honoured_by_another_on_the_same_database()
+    {
+        // Two instances on one SQLite file stand for a load-balanced pair: the Data Protection keys live in the database.
+        using var first = KeysHost.With(new Dictionary<string, string?>());
+        var settings = new Dictionary<string, string?> { ["Auth:Mode"] = "keys", ["Auth:AdminToken"] = KeysHost.AdminToken };
+        using var second = new QaServiceFactory(first.Factory.DatabasePath, extra: settings);
+        var (_, key) = await first.CreateTenantAsync();
+        var browser = BrowserLike.Client(first.Factory);
+        var signIn = await BrowserLike.SignInAsync(browser, key);
+        var cookie = signIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("qaservice_session=", StringComparison.Ordinal)).Split(';')[0];
+
+        var elsewhere = BrowserLike.Client(second);
+        using var request = new HttpRequestMessage(HttpMethod.Get, "/");
+        request.Headers.Add("Cookie", cookie);
+        Assert.Contains("id=\"sign-out\"", await (await elsewhere.SendAsync(request)).Content.ReadAsStringAsync());
+        // In-process hosts would also share a key folder under $HOME: check the ring really is in the database.
+        await using var connection = new Microsoft.Data.Sqlite.SqliteConnection($"Data Source={first.Factory.DatabasePath};Pooling=False");
+        await connection.OpenAsync();
+        await using var count = connection.CreateCommand();
+        count.CommandText = "SELECT COUNT(*) FROM service_secrets WHERE name LIKE 'data-protection-key:%' AND value LIKE '<key %'";
+        Assert.True((long)(await count.ExecuteScalarAsync())! >= 1);
+    }
 }
