@@ -14,7 +14,7 @@ public sealed class KeysLiveService : LiveService
     /// <summary>Invented admin token for tests (≥ 32 characters, as Auth:AdminToken requires).</summary>
     public const string AdminToken = "browser-test-admin-token-0123456789-not-a-secret";
 
-    protected override IEnumerable<string> Settings => ["--Auth:Mode=keys", $"--Auth:AdminToken={AdminToken}"];
+    protected override IEnumerable<KeyValuePair<string, string>> Settings => [new("Auth:Mode", "keys"), new("Auth:AdminToken", AdminToken)];
 
     /// <summary>A new tenant's name and API key.</summary>
     public async Task<(string Name, string Key)> CreateTenantAsync()

@@ -33,6 +33,7 @@ internal static class ShareLinksApi
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status401Unauthorized)
             .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
             .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
         group.MapDelete("/{linkId}", DeleteAsync)
             .WithName("RevokeShareLink")

@@ -22,7 +22,9 @@ internal static class SharedReportViews
 
     public static void MapSharedReports(this IEndpointRouteBuilder routes)
     {
-        var group = routes.MapGroup(Root + "/{token}").WithTags("Share links");
+        // Pages for people who got a link (like / and /ui/*), not API operations: kept out of the OpenAPI document,
+        // where every 4xx is a problem body while an expired link's page is HTML.
+        var group = routes.MapGroup(Root + "/{token}").WithTags("Share links").ExcludeFromDescription();
         group.MapGet("/report.html", PageAsync)
             .WithName("GetSharedReportHtml")
             .WithSummary("A shared report's HTML page (no credentials: the link is the permission)")
