@@ -35,7 +35,7 @@ internal static class PostgresSchema
             created_at timestamptz NOT NULL
         );
         """,
-        // 3: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key).
+        // 3: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key, the Data Protection key ring).
         """
         CREATE TABLE share_links (
             id         text        NOT NULL PRIMARY KEY,

@@ -31,7 +31,7 @@ internal static class SqliteSchema
             created_at TEXT NOT NULL
         );
         """,
-        // 3: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key).
+        // 3: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key, the Data Protection key ring).
         """
         CREATE TABLE share_links (
             id         TEXT NOT NULL PRIMARY KEY,
