@@ -5,6 +5,7 @@ using QaService.Api.Health;
 using QaService.Api.Home;
 using QaService.Api.Reports;
 using QaService.Api.Security;
+using QaService.Api.Sharing;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
 
@@ -27,6 +28,8 @@ app.MapTransform();
 app.MapCrs();
 app.MapAdmin();
 app.MapScreening();
+app.MapShareLinks();
+app.MapSharedReports();
 
 await app.RunAsync();
 

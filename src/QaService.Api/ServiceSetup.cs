@@ -48,6 +48,8 @@ internal static class ServiceSetup
                 string.Create(CultureInfo.InvariantCulture, $"the request took longer than {limits.RequestTimeoutSeconds} s (Limits:RequestTimeoutSeconds); send fewer points per request")).ExecuteAsync(context),
         });
 
+        builder.Services.AddPeopleAuthentication(builder.Configuration.GetSection(AuthOptions.Section).Get<AuthOptions>() ?? new AuthOptions());
+        builder.Services.AddSingleton<Sharing.ShareLinkSigning>();
         builder.Services.AddSingleton(TimeProvider.System);
         builder.Services.AddHttpContextAccessor();
         builder.Services.AddAntiforgery();
@@ -96,6 +98,8 @@ internal static class ServiceSetup
         });
         app.UseRequestTimeouts();
         app.UseMiddleware<TenantResolutionMiddleware>();
+        // After tenant resolution, which sets the user that antiforgery tokens are bound to.
+        app.UseAntiforgery();
         app.UseRateLimiter();
         app.UseAntiforgery();
 

@@ -8,7 +8,7 @@ namespace QaService.Browser.Tests;
 /// headless Debian Chromium driven by Playwright. A browser cannot reach an in-memory test server, hence the process.
 /// When Chromium is not installed the tests say so and return (xunit 2.9 has no dynamic skip); CI installs it.
 /// </summary>
-public sealed class LiveService : IAsyncLifetime
+public class LiveService : IAsyncLifetime
 {
     /// <summary>Debian's package <c>chromium</c>; never a browser downloaded by Playwright.</summary>
     public const string ChromiumPath = "/usr/bin/chromium";
@@ -33,12 +33,18 @@ public sealed class LiveService : IAsyncLifetime
     /// <summary>Where screenshots and PDFs are kept: TestResults/browser under the test output folder.</summary>
     public static string ArtifactFolder { get; } = Directory.CreateDirectory(Path.Combine(AppContext.BaseDirectory, "TestResults", "browser")).FullName;
 
+    /// <summary>More service settings (a subclass starts it in another mode).</summary>
+    protected virtual IEnumerable<KeyValuePair<string, string>> Settings => [];
+
     public async Task InitializeAsync()
     {
         if (!ChromiumInstalled)
             return;
 
-        service = await ServiceProcess.StartAsync(new Dictionary<string, string> { ["Demo:Enabled"] = "true" });
+        var settings = new Dictionary<string, string> { ["Demo:Enabled"] = "true" };
+        foreach (var (key, value) in Settings)
+            settings[key] = value;
+        service = await ServiceProcess.StartAsync(settings);
         playwright = await Playwright.CreateAsync();
         Browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions { ExecutablePath = ChromiumPath, Headless = true, Args = ChromiumArgs });
     }

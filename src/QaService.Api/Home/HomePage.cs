@@ -30,32 +30,31 @@ internal static class HomePage
     public static void MapHome(this IEndpointRouteBuilder routes)
     {
         routes.MapGet("/", ShowAsync).ExcludeFromDescription();
-        routes.MapPost(UploadForm.Path, (HttpContext context, EndpointDataSource endpoints) => UploadForm.SubmitAsync(context, endpoints)).ExcludeFromDescription();
+        routes.MapPost(UploadForm.Path, (HttpContext context, EndpointDataSource endpoints) => UploadForm.SubmitAsync(context, endpoints))
+            .AddEndpointFilter(new UiAntiforgery(tokenInQuery: true)).ExcludeFromDescription();
+        routes.MapSignIn();
     }
 
     private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, CancellationToken cancellationToken)
     {
-        // With API keys required a browser is nobody's tenant: it gets the page without a list or form.
-        var tenant = context.Features.Get<TenantFeature>();
-        var recent = tenant is null ? null : await store.ListRecentAsync(tenant.TenantId, RecentCount, cancellationToken);
-        return new HtmlPage(Render(recent));
+        // With API keys required a browser without a session is nobody's tenant: it is asked to sign in.
+        if (context.Features.Get<TenantFeature>() is not { } tenant)
+            return SignInPage.Form(context);
+        var recent = await store.ListRecentAsync(tenant.TenantId, RecentCount, cancellationToken);
+        var signOut = context.User.Identity?.IsAuthenticated == true ? SignInPage.SignOutForm(context) : "";
+        return new HtmlPage(Render(recent, UiAntiforgery.Token(context), signOut));
     }
 
-    internal static string Render(IReadOnlyList<ReportSummary>? recent)
+    /// <param name="antiforgeryToken">Request token for the upload form (<see cref="UiAntiforgery"/>).</param>
+    /// <param name="signOutForm">Markup of the sign-out button of a signed-in browser, or empty.</param>
+    internal static string Render(IReadOnlyList<ReportSummary> recent, string antiforgeryToken, string signOutForm = "")
     {
         var html = new StringBuilder();
         PageShell.Open(html, "QaService — accuracy tests", "Accuracy tests of GNSS field positions", "QaService");
-        html.Append("<p>Test field fixes against surveyed check points: NSSDA, RMSE and exact circular-error figures, checks, a verdict and a report to sign.</p>");
-
-        if (recent is null)
-        {
-            html.Append("<p class=\"none\">This service requires API keys: use <code>/v1/assessments</code> with <code>Authorization: Bearer &lt;key&gt;</code>.</p>");
-        }
-        else
-        {
-            AppendList(html, recent);
-            AppendForm(html);
-        }
+        html.Append("<p>Test field fixes against surveyed check points: NSSDA, RMSE and exact circular-error figures, checks, a verdict and a report to sign.</p>")
+            .Append(signOutForm);
+        AppendList(html, recent);
+        AppendForm(html, antiforgeryToken);
 
         html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
             .Append($"<li><a href=\"{ReportListPage.Path}\">All assessments</a>: filter, page through, delete</li>")
@@ -90,10 +89,10 @@ internal static class HomePage
         html.Append("</section>");
     }
 
-    private static void AppendForm(StringBuilder html)
+    private static void AppendForm(StringBuilder html, string antiforgeryToken)
     {
         html.Append("<section aria-labelledby=\"upload-h\"><h2 id=\"upload-h\"><span class=\"num\">2</span> Test a new batch</h2>")
-            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}\" enctype=\"multipart/form-data\">")
+            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}?{UiAntiforgery.QueryField}={Escape(Uri.EscapeDataString(antiforgeryToken))}\" enctype=\"multipart/form-data\">")
             .Append("<p><label for=\"options\">Options (JSON): title, each side's <code>crs</code> and <code>heights</code>, the required accuracy in <code>spec</code>; for CSV files also <code>columns</code>.</label>")
             .Append($"<textarea id=\"options\" name=\"options\" rows=\"9\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
             .Append("<p><label for=\"marks\">Marks file (the surveyed check points)</label> <input id=\"marks\" name=\"marks\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")

@@ -31,8 +31,8 @@ internal static class UploadForm
 
         if (context.Features.Get<TenantFeature>() is null)
         {
-            await new HtmlPage(ErrorPage(StatusCodes.Status403Forbidden, "Uploads need an API key",
-                "this service requires API keys (Auth:Mode keys), which a browser form cannot send: post to /v1/assessments with your key instead", []), StatusCodes.Status403Forbidden).ExecuteAsync(context);
+            await new HtmlPage(ErrorPage(StatusCodes.Status403Forbidden, "Sign in first",
+                "this service requires API keys (Auth:Mode keys): sign in with your team's key on the start page, or post to /v1/assessments with the key", []), StatusCodes.Status403Forbidden).ExecuteAsync(context);
             return;
         }
 

@@ -13,6 +13,7 @@ internal static class TagDescriptions
         ["Transform"] = "Coordinate transformation of a batch of points between CRSs, frames and epochs.",
         ["CRS"] = "The catalog of supported coordinate reference systems: search and definitions.",
         ["Screening"] = "Accept, flag or reject single fixes from their receiver metadata under named profiles.",
+        ["Share links"] = "Links that open one report's HTML page, CSV and GeoJSON without credentials until they expire or are revoked.",
         ["Admin"] = "Tenant administration with the admin token (Auth:AdminToken).",
     };
 }

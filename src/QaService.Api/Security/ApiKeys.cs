@@ -35,12 +35,26 @@ internal static class ApiKeys
     public static bool HashEquals(string presentedHash, string storedHash) =>
         CryptographicOperations.FixedTimeEquals(Encoding.ASCII.GetBytes(presentedHash), Encoding.ASCII.GetBytes(storedHash));
 
+    /// <summary>Longest Authorization value looked at when JWTs are accepted (a signed token with its claims, common practice).</summary>
+    public const int MaximumJwtLength = 8192;
+
+    /// <summary>The tenant whose key this is, or null; the lookup is by hash, then compared again in constant time.</summary>
+    public static async Task<Storage.StoredTenant?> FindTenantAsync(Storage.ITenantStore tenants, string key, CancellationToken cancellationToken)
+    {
+        var hash = Hash(key);
+        var tenant = await tenants.FindByKeyHashAsync(hash, cancellationToken);
+        return tenant is not null && HashEquals(hash, tenant.KeyHash) ? tenant : null;
+    }
+
+    /// <summary>True for a compact JWS (RFC 7515 §7.1: three base64url parts joined by dots); API keys hold no dot.</summary>
+    public static bool LooksLikeJwt(string token) => token.Count(c => c == '.') == 2;
+
     /// <summary>The bearer token of an Authorization header, or null when there is none.</summary>
-    public static string? BearerToken(HttpRequest request)
+    public static string? BearerToken(HttpRequest request, int maximumLength = MaximumPresentedLength)
     {
         var header = request.Headers.Authorization.ToString();
         const string scheme = "Bearer ";
-        if (header.Length <= scheme.Length || header.Length > MaximumPresentedLength
+        if (header.Length <= scheme.Length || header.Length > maximumLength
             || !header.StartsWith(scheme, StringComparison.OrdinalIgnoreCase))
             return null;
         var token = header[scheme.Length..].Trim();

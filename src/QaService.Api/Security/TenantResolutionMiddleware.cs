@@ -1,3 +1,6 @@
+using System.Security.Claims;
+using Microsoft.AspNetCore.Antiforgery;
+using Microsoft.AspNetCore.Authentication;
 using Microsoft.Extensions.Options;
 using QaService.Api.Problems;
 using QaService.Api.Storage;
@@ -10,8 +13,13 @@ namespace QaService.Api.Security;
 /// is the local tenant; with <c>keys</c> every <c>/v1/*</c> call needs a tenant's Bearer key (401
 /// otherwise), and <c>/v1/admin/*</c> needs the admin token (a tenant key there gets 403; without an
 /// admin token configured the admin paths do not exist).
+/// A bearer value is an API key, or with <c>Auth:Jwt:Authority</c> set a JWT whose <c>Auth:Jwt:TenantClaim</c> names
+/// an existing tenant. Without a bearer value a signed-in browser's session cookie counts: on every page outside
+/// <c>/v1</c> and on safe (GET/HEAD) <c>/v1</c> calls; a state-changing <c>/v1</c> call made with the cookie also
+/// needs the antiforgery token in <see cref="PeopleAuthentication.AntiforgeryHeader"/>, so a page on another site
+/// cannot act with a visitor's session.
 /// </summary>
-internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<AuthOptions> options, ITenantStore tenants)
+internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<AuthOptions> options, ITenantStore tenants, IAntiforgery antiforgery)
 {
     private static readonly PathString ApiRoot = "/v1";
     private static readonly PathString AdminRoot = "/v1/admin";
@@ -32,25 +40,68 @@ internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<
         }
         if (!path.StartsWithSegments(ApiRoot))
         {
+            // Pages (/, /ui/*): a signed-in browser is its tenant; anyone else gets pages without tenant data.
+            if (await PeopleAuthentication.SessionAsync(context) is { } page)
+            {
+                context.User = page.Principal;
+                await ContinueAsAsync(context, new TenantFeature(page.TenantId, IsAdmin: false));
+                return;
+            }
             await next(context);
             return;
         }
 
-        var key = ApiKeys.BearerToken(context.Request);
-        if (key is null)
+        var token = ApiKeys.BearerToken(context.Request, auth.Jwt.Enabled ? ApiKeys.MaximumJwtLength : ApiKeys.MaximumPresentedLength);
+        if (token is null)
         {
-            await RejectAsync(context, StatusCodes.Status401Unauthorized, "Authentication required",
-                "send the tenant's API key as \"Authorization: Bearer <key>\" (Auth:Mode is keys)", "");
+            await SessionOrRejectAsync(context);
             return;
         }
-        var tenant = await FindTenantAsync(key, context.RequestAborted);
+        var tenant = auth.Jwt.Enabled && ApiKeys.LooksLikeJwt(token)
+            ? await FromJwtAsync(context, auth.Jwt)
+            : await ApiKeys.FindTenantAsync(tenants, token, context.RequestAborted);
         if (tenant is null)
         {
             await RejectAsync(context, StatusCodes.Status401Unauthorized, "Authentication failed",
-                "the API key is not valid; ask the service's administrator for a key", ", error=\"invalid_token\"");
+                auth.Jwt.Enabled
+                    ? "the API key or token is not valid (a token must be signed by Auth:Jwt:Authority, be for Auth:Jwt:Audience, be unexpired and name an existing tenant in its tenant claim)"
+                    : "the API key is not valid; ask the service's administrator for a key", ", error=\"invalid_token\"");
             return;
         }
         await ContinueAsAsync(context, new TenantFeature(tenant.Id, IsAdmin: false));
+    }
+
+    /// <summary>No bearer value on /v1: a session cookie counts for reading, and for changing only with the antiforgery header.</summary>
+    private async Task SessionOrRejectAsync(HttpContext context)
+    {
+        var session = await PeopleAuthentication.SessionAsync(context);
+        if (session is { } signedIn)
+        {
+            context.User = signedIn.Principal;
+            var method = context.Request.Method;
+            bool safe = HttpMethods.IsGet(method) || HttpMethods.IsHead(method) || HttpMethods.IsOptions(method);
+            // Header checked first: without it antiforgery would read a form body, which this must never do here.
+            if (safe || (context.Request.Headers.ContainsKey(PeopleAuthentication.AntiforgeryHeader) && await antiforgery.IsRequestValidAsync(context)))
+            {
+                await ContinueAsAsync(context, new TenantFeature(signedIn.TenantId, IsAdmin: false));
+                return;
+            }
+            await RejectAsync(context, StatusCodes.Status401Unauthorized, "Authentication required",
+                $"a browser session may change data under /v1 only with a valid antiforgery token in {PeopleAuthentication.AntiforgeryHeader}; API clients send \"Authorization: Bearer <key>\"", "");
+            return;
+        }
+        await RejectAsync(context, StatusCodes.Status401Unauthorized, "Authentication required",
+            "send the tenant's API key as \"Authorization: Bearer <key>\" (Auth:Mode is keys), or sign in at / with a browser", "");
+    }
+
+    /// <summary>The tenant named by a valid JWT's tenant claim (the tenant's name, exactly), or null.</summary>
+    private async Task<StoredTenant?> FromJwtAsync(HttpContext context, JwtOptions jwt)
+    {
+        var result = await context.AuthenticateAsync(PeopleAuthentication.JwtScheme);
+        if (!result.Succeeded || result.Principal.FindFirstValue(jwt.TenantClaim) is not { Length: > 0 and <= AdminApi.MaximumNameLength } name)
+            return null;
+        context.User = result.Principal;
+        return await tenants.FindByNameAsync(name, context.RequestAborted);
     }
 
     private async Task AdminAsync(HttpContext context, AuthOptions auth)
@@ -67,7 +118,7 @@ internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<
             await ContinueAsAsync(context, new TenantFeature("admin", IsAdmin: true));
             return;
         }
-        if (token is not null && await FindTenantAsync(token, context.RequestAborted) is not null)
+        if (token is not null && await ApiKeys.FindTenantAsync(tenants, token, context.RequestAborted) is not null)
         {
             await RejectAsync(context, StatusCodes.Status403Forbidden, "Forbidden",
                 "a tenant key cannot manage tenants; use the admin token (Auth:AdminToken)", null);
@@ -75,14 +126,6 @@ internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<
         }
         await RejectAsync(context, StatusCodes.Status401Unauthorized, "Authentication required",
             "send the admin token (Auth:AdminToken) as \"Authorization: Bearer <token>\"", token is null ? "" : ", error=\"invalid_token\"");
-    }
-
-    private async Task<StoredTenant?> FindTenantAsync(string key, CancellationToken cancellationToken)
-    {
-        var hash = ApiKeys.Hash(key);
-        var tenant = await tenants.FindByKeyHashAsync(hash, cancellationToken);
-        // The lookup is by hash; the stored hash is compared again in constant time before it counts.
-        return tenant is not null && ApiKeys.HashEquals(hash, tenant.KeyHash) ? tenant : null;
     }
 
     private async Task ContinueAsAsync(HttpContext context, TenantFeature tenant)

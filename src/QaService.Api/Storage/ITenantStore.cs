@@ -8,6 +8,9 @@ public interface ITenantStore
 
     /// <summary>The tenant whose key hashes to <paramref name="keyHash"/>, or null.</summary>
     Task<StoredTenant?> FindByKeyHashAsync(string keyHash, CancellationToken cancellationToken);
+
+    /// <summary>The tenant with exactly this name, or null (a JWT's tenant claim names its tenant this way).</summary>
+    Task<StoredTenant?> FindByNameAsync(string name, CancellationToken cancellationToken);
 }
 
 /// <summary>One tenant row. <paramref name="KeyHash"/> is lower-case hex SHA-256 of the key.</summary>

@@ -62,6 +62,22 @@ internal static class PostgresSchema
         END
         $$;
         """,
+        // 5: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key, the Data Protection key ring).
+        """
+        CREATE TABLE share_links (
+            id         text        NOT NULL PRIMARY KEY,
+            token_hash text        NOT NULL UNIQUE,
+            tenant     text        NOT NULL,
+            report_id  text        NOT NULL,
+            created_at timestamptz NOT NULL,
+            expires_at timestamptz NOT NULL
+        );
+        CREATE INDEX share_links_report ON share_links (tenant, report_id);
+        CREATE TABLE service_secrets (
+            name  text NOT NULL PRIMARY KEY,
+            value text NOT NULL
+        );
+        """,
     ];
 
     /// <summary>The schema version this build migrates to (the number of migrations).</summary>

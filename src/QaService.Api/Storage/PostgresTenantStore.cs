@@ -16,10 +16,17 @@ internal sealed class PostgresTenantStore(NpgsqlDataSource dataSource) : ITenant
         return await command.ExecuteNonQueryAsync(cancellationToken) == 1;
     }
 
-    public async Task<StoredTenant?> FindByKeyHashAsync(string keyHash, CancellationToken cancellationToken)
+    public Task<StoredTenant?> FindByKeyHashAsync(string keyHash, CancellationToken cancellationToken) =>
+        FindAsync("key_hash", keyHash, cancellationToken);
+
+    public Task<StoredTenant?> FindByNameAsync(string name, CancellationToken cancellationToken) =>
+        FindAsync("name", name, cancellationToken);
+
+    /// <param name="column">A fixed column name from this class, never caller input.</param>
+    private async Task<StoredTenant?> FindAsync(string column, string value, CancellationToken cancellationToken)
     {
-        await using var command = dataSource.CreateCommand("SELECT id, name, key_hash, created_at FROM tenants WHERE key_hash = $1");
-        command.Parameters.Add(new NpgsqlParameter { Value = keyHash });
+        await using var command = dataSource.CreateCommand($"SELECT id, name, key_hash, created_at FROM tenants WHERE {column} = $1");
+        command.Parameters.Add(new NpgsqlParameter { Value = value });
         await using var reader = await command.ExecuteReaderAsync(cancellationToken);
         if (!await reader.ReadAsync(cancellationToken))
             return null;

@@ -36,6 +36,22 @@ internal static class SqliteSchema
         """
         CREATE INDEX reports_tenant_created ON reports (tenant, created_at DESC, id DESC, verdict, title);
         """,
+        // 4: share links (only the SHA-256 of a link's token is kept) and service-wide secrets (the share-link HMAC key, the Data Protection key ring).
+        """
+        CREATE TABLE share_links (
+            id         TEXT NOT NULL PRIMARY KEY,
+            token_hash TEXT NOT NULL UNIQUE,
+            tenant     TEXT NOT NULL,
+            report_id  TEXT NOT NULL,
+            created_at TEXT NOT NULL,
+            expires_at TEXT NOT NULL
+        );
+        CREATE INDEX share_links_report ON share_links (tenant, report_id);
+        CREATE TABLE service_secrets (
+            name  TEXT NOT NULL PRIMARY KEY,
+            value TEXT NOT NULL
+        );
+        """,
     ];
 
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)

@@ -20,12 +20,19 @@ internal sealed class SqliteTenantStore(IOptions<StorageOptions> options) : ITen
         return await command.ExecuteNonQueryAsync(cancellationToken) == 1;
     }
 
-    public async Task<StoredTenant?> FindByKeyHashAsync(string keyHash, CancellationToken cancellationToken)
+    public Task<StoredTenant?> FindByKeyHashAsync(string keyHash, CancellationToken cancellationToken) =>
+        FindAsync("key_hash", keyHash, cancellationToken);
+
+    public Task<StoredTenant?> FindByNameAsync(string name, CancellationToken cancellationToken) =>
+        FindAsync("name", name, cancellationToken);
+
+    /// <param name="column">A fixed column name from this class, never caller input.</param>
+    private async Task<StoredTenant?> FindAsync(string column, string value, CancellationToken cancellationToken)
     {
         await using var connection = await SqliteConnections.OpenAsync(connectionString, cancellationToken);
         await using var command = connection.CreateCommand();
-        command.CommandText = "SELECT id, name, key_hash, created_at FROM tenants WHERE key_hash = $hash";
-        command.Parameters.AddWithValue("$hash", keyHash);
+        command.CommandText = $"SELECT id, name, key_hash, created_at FROM tenants WHERE {column} = $value";
+        command.Parameters.AddWithValue("$value", value);
         await using var reader = await command.ExecuteReaderAsync(cancellationToken);
         if (!await reader.ReadAsync(cancellationToken))
             return null;

@@ -92,6 +92,28 @@ public sealed class TenantKeyTests(KeysHost host) : IClassFixture<KeysHost>
         Assert.Equal(HttpStatusCode.NoContent, (await host.Client(north).DeleteAsync(location)).StatusCode);
     }
 
+    [Fact]
+    public async Task What_one_tenant_created_cannot_be_shared_or_unshared_by_another()
+    {
+        var (_, north) = await host.CreateTenantAsync();
+        var (_, south) = await host.CreateTenantAsync();
+        var location = (await host.Client(north).PostJsonAsync(Requests.Minimal())).Headers.Location!.OriginalString;
+        foreach (var (method, path) in TenantScopedWritePaths(location))
+        {
+            using var byOther = new HttpRequestMessage(new HttpMethod(method), path) { Content = JsonContent.Create(new { expiresInHours = 1 }) };
+            await ProblemAssert.IsProblemAsync(await host.Client(south).SendAsync(byOther), HttpStatusCode.NotFound);
+        }
+        var link = await host.Client(north).PostAsJsonAsync($"{location}/share-links", new { expiresInHours = 1 });
+        Assert.Equal(HttpStatusCode.Created, link.StatusCode);
+        var linkId = System.Text.Json.JsonDocument.Parse(await link.Content.ReadAsStringAsync()).RootElement.GetProperty("id").GetString();
+        await ProblemAssert.IsProblemAsync(await host.Client(south).DeleteAsync($"{location}/share-links/{linkId}"), HttpStatusCode.NotFound);
+        Assert.Equal(HttpStatusCode.NoContent, (await host.Client(north).DeleteAsync($"{location}/share-links/{linkId}")).StatusCode);
+    }
+
+    /// <summary>Every path under an assessment that changes something of it (method, path).</summary>
+    internal static IEnumerable<(string Method, string Path)> TenantScopedWritePaths(string location) =>
+        [("POST", $"{location}/share-links"), ("DELETE", $"{location}/share-links/sl_AAAAAAAAAAAAAAAAAAAAAA")];
+
     /// <summary>Every path under an assessment that returns its data.</summary>
     internal static IEnumerable<string> TenantScopedReadPaths(string location) =>
         [location, $"{location}/report.html", $"{location}/residuals.csv", $"{location}/residuals.geojson"];
