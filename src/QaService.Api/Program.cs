@@ -7,6 +7,7 @@ using QaService.Api.Reports;
 using QaService.Api.Security;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
+using QaService.Api.Upload;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -22,6 +23,7 @@ app.MapTransform();
 app.MapCrs();
 app.MapAdmin();
 app.MapScreening();
+app.MapGuidedUpload();
 
 await app.RunAsync();
 

@@ -31,6 +31,10 @@ internal static class ServiceSetup
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
         builder.Services.AddOptions<WarmUp.WarmUpOptions>().BindConfiguration(WarmUp.WarmUpOptions.Section);
+        builder.Services.AddOptions<Upload.UploadStagingOptions>().BindConfiguration(Upload.UploadStagingOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        // Forms post with a token from the page (the guided upload; the sign-in form too). AddAntiforgery registers with
+        // TryAdd, so a second registration elsewhere changes nothing.
+        builder.Services.AddAntiforgery();
 
         // Read now as well (Kestrel, the rate limiter and the timeout policy are built from it), so check it now too.
         var limits = builder.Configuration.GetSection(LimitsOptions.Section).Get<LimitsOptions>() ?? new LimitsOptions();
@@ -101,6 +105,7 @@ internal static class ServiceSetup
         });
         app.UseRequestTimeouts();
         app.UseMiddleware<TenantResolutionMiddleware>();
+        app.UseAntiforgeryOnce();
         app.UseRateLimiter();
 
         app.MapPrometheusScrapingEndpoint("/metrics");
@@ -113,4 +118,14 @@ internal static class ServiceSetup
         });
         return app;
     }
+
+    /// <summary>Set by <c>UseAntiforgery</c> on the application's properties (ASP.NET Core's AntiforgeryApplicationBuilderExtensions).</summary>
+    private const string AntiforgeryMiddlewareSetKey = "__AntiforgeryMiddlewareSet";
+
+    /// <summary>
+    /// The antiforgery middleware once, whoever asks first (it validates only endpoints that carry antiforgery metadata;
+    /// the guided upload validates its own forms).
+    /// </summary>
+    public static IApplicationBuilder UseAntiforgeryOnce(this IApplicationBuilder app) =>
+        app.Properties.ContainsKey(AntiforgeryMiddlewareSetKey) ? app : app.UseAntiforgery();
 }

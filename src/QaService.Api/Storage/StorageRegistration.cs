@@ -20,11 +20,13 @@ internal static class StorageRegistration
             services.AddSingleton(provider => new NpgsqlDataSourceBuilder(provider.GetRequiredService<IOptions<StorageOptions>>().Value.EffectiveConnectionString).Build());
             services.AddSingleton<IReportStore, PostgresReportStore>();
             services.AddSingleton<ITenantStore, PostgresTenantStore>();
+            services.AddSingleton<IUploadStagingStore, PostgresUploadStagingStore>();
         }
         else
         {
             services.AddSingleton<IReportStore, SqliteReportStore>();
             services.AddSingleton<ITenantStore, SqliteTenantStore>();
+            services.AddSingleton<IUploadStagingStore, SqliteUploadStagingStore>();
         }
         return services;
     }
