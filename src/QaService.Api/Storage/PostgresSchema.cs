@@ -53,6 +53,9 @@ internal static class PostgresSchema
         """,
     ];
 
+    /// <summary>How many migrations this build knows (the latest version).</summary>
+    internal static int Count => Migrations.Length;
+
     public static async Task MigrateAsync(NpgsqlDataSource dataSource, CancellationToken cancellationToken)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancellationToken);
