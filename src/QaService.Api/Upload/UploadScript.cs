@@ -46,13 +46,15 @@ internal static class UploadScript
           var text=document.getElementById("upload-progress-text");
           box.hidden=false;
           var xhr=new XMLHttpRequest();
-          xhr.open("POST",form.action);
+          // The buttons are named "action", which shadows form.action: read the attribute.
+          var target=new URL(form.getAttribute("action"),window.location.href).href;
+          xhr.open("POST",target);
           xhr.upload.addEventListener("progress",function(p){
             if(p.lengthComputable){bar.max=p.total;bar.value=p.loaded;text.textContent="Sending the files: "+Math.round(100*p.loaded/p.total)+" %";}
           });
           xhr.addEventListener("load",function(){
             text.textContent="Sent; reading the files";
-            if(xhr.responseURL&&xhr.responseURL!==form.action){window.location.assign(xhr.responseURL);return;}
+            if(xhr.responseURL&&xhr.responseURL!==target){window.location.assign(xhr.responseURL);return;}
             document.open();document.write(xhr.responseText);document.close();
           });
           xhr.addEventListener("error",function(){text.textContent="The upload failed; sending the form the ordinary way";form.submit();});
