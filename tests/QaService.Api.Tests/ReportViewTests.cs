@@ -82,9 +82,18 @@ public sealed class ReportViewTests : IClassFixture<DemoServiceHost>
         int newest = html.IndexOf("Second &lt;batch&gt;", StringComparison.Ordinal);
         int demo = html.IndexOf("Millbrook Ferry", StringComparison.Ordinal);
         Assert.True(newest > 0 && demo > newest, "the new assessment is listed above the demo");
-        Assert.Contains("action=\"/ui/assessments\" enctype=\"multipart/form-data\"", html);
+        Assert.Matches("action=\"/ui/assessments\\?form=[^\"]+\" enctype=\"multipart/form-data\"", html);
         foreach (var part in new[] { "name=\"options\"", "name=\"marks\"", "name=\"fixes\"" })
             Assert.Contains(part, html);
+    }
+
+    [Fact]
+    public async Task A_form_post_without_the_pages_antiforgery_token_is_refused()
+    {
+        using var request = new HttpRequestMessage(HttpMethod.Post, "/ui/assessments?form=forged") { Content = new MultipartFormDataContent() };
+        var response = await client.SendAsync(request);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Contains("Form expired", await response.Content.ReadAsStringAsync());
     }
 
     [Fact]

@@ -34,15 +34,16 @@ internal static class HomePage
         routes.MapPost(UploadForm.Path, (HttpContext context, EndpointDataSource endpoints) => UploadForm.SubmitAsync(context, endpoints)).ExcludeFromDescription();
     }
 
-    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, CancellationToken cancellationToken)
+    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, Microsoft.AspNetCore.Antiforgery.IAntiforgery antiforgery, CancellationToken cancellationToken)
     {
         // With API keys required a browser is nobody's tenant: it gets the page without a list or form.
         var tenant = context.Features.Get<TenantFeature>();
         var recent = tenant is null ? null : await store.ListRecentAsync(tenant.TenantId, RecentCount, cancellationToken);
-        return new HtmlPage(Render(recent));
+        return new HtmlPage(Render(recent, tenant is null ? null : antiforgery.GetAndStoreTokens(context).RequestToken));
     }
 
-    internal static string Render(IReadOnlyList<ReportSummary>? recent)
+    /// <param name="formToken">The antiforgery request token the JSON form carries (in its action's query: its body must stay the contract's multipart request).</param>
+    internal static string Render(IReadOnlyList<ReportSummary>? recent, string? formToken = null)
     {
         var html = new StringBuilder();
         PageShell.Open(html, "QaService — accuracy tests", "Accuracy tests of GNSS field positions", "QaService");
@@ -55,7 +56,7 @@ internal static class HomePage
         else
         {
             AppendList(html, recent);
-            AppendForm(html);
+            AppendForm(html, formToken);
         }
 
         html.Append("<section aria-labelledby=\"more-h\"><h2 id=\"more-h\"><span class=\"num\">3</span> More</h2><ul>")
@@ -90,13 +91,13 @@ internal static class HomePage
         html.Append("</section>");
     }
 
-    private static void AppendForm(StringBuilder html)
+    private static void AppendForm(StringBuilder html, string? formToken)
     {
         html.Append("<section aria-labelledby=\"upload-h\"><h2 id=\"upload-h\"><span class=\"num\">2</span> Test a new batch</h2>")
             .Append($"<p class=\"start\"><a id=\"start-guided\" class=\"button\" href=\"{Upload.GuidedUploadApi.Root}/new\">Start a guided upload</a></p>")
             .Append("<p>Choose each side's coordinate system from the catalog, the standard and the required accuracy, send the two files, check how their first rows are read, then run the test. No JSON to write.</p>")
             .Append("<h3 id=\"json-h\">Or send the options as JSON</h3>")
-            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}\" enctype=\"multipart/form-data\" aria-labelledby=\"json-h\">")
+            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}{(formToken is null ? "" : "?" + UploadForm.TokenQuery + "=" + Escape(Uri.EscapeDataString(formToken)))}\" enctype=\"multipart/form-data\" aria-labelledby=\"json-h\">")
             .Append("<p><label for=\"options\">Options (JSON): title, each side's <code>crs</code> and <code>heights</code>, the required accuracy in <code>spec</code>; for CSV files also <code>columns</code>.</label>")
             .Append($"<textarea id=\"options\" name=\"options\" rows=\"9\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
             .Append("<p><label for=\"marks\">Marks file (the surveyed check points)</label> <input id=\"marks\" name=\"marks\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")

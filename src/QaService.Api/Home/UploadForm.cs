@@ -17,6 +17,9 @@ internal static class UploadForm
 {
     public const string Path = "/ui/assessments";
 
+    /// <summary>Query parameter carrying the form's antiforgery request token (the body is the contract's multipart request, which has no room for it).</summary>
+    public const string TokenQuery = "form";
+
     /// <summary>Endpoint name of POST /v1/assessments.</summary>
     private const string CreateEndpointName = "CreateAssessment";
 
@@ -33,6 +36,17 @@ internal static class UploadForm
         {
             await new HtmlPage(ErrorPage(StatusCodes.Status403Forbidden, "Uploads need an API key",
                 "this service requires API keys (Auth:Mode keys), which a browser form cannot send: post to /v1/assessments with your key instead", []), StatusCodes.Status403Forbidden).ExecuteAsync(context);
+            return;
+        }
+
+        // The form's antiforgery token travels in the query; the antiforgery service reads it from its header.
+        var antiforgery = context.RequestServices.GetRequiredService<Microsoft.AspNetCore.Antiforgery.IAntiforgery>();
+        var options = context.RequestServices.GetRequiredService<Microsoft.Extensions.Options.IOptions<Microsoft.AspNetCore.Antiforgery.AntiforgeryOptions>>().Value;
+        context.Request.Headers[options.HeaderName!] = context.Request.Query[TokenQuery].ToString();
+        if (!await antiforgery.IsRequestValidAsync(context))
+        {
+            await new HtmlPage(ErrorPage(StatusCodes.Status400BadRequest, "Form expired",
+                "the form's antiforgery token is missing or stale; open the page again and resend", []), StatusCodes.Status400BadRequest).ExecuteAsync(context);
             return;
         }
 
