@@ -30,7 +30,9 @@ internal static partial class GuidedUploadApi
     public static RouteGroupBuilder MapGuidedUpload(this IEndpointRouteBuilder routes)
     {
         var limits = routes.ServiceProvider.GetRequiredService<IOptions<UploadStagingOptions>>().Value;
-        var group = routes.MapGroup(Root).WithTags("Guided upload");
+        // Browser pages (HTML forms and HTML error pages), not the JSON API: named and summarised like every endpoint,
+        // but left out of the OpenAPI document, as the home page is.
+        var group = routes.MapGroup(Root).WithTags("Guided upload").ExcludeFromDescription();
 
         group.MapGet("/new", NewAsync)
             .WithName("ShowGuidedUpload")
