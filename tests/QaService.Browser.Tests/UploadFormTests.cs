@@ -93,7 +93,7 @@ public sealed class UploadFormTests(LiveService service, ITestOutputHelper outpu
         await page.Locator("#options").FillAsync("{ \"title\": ");
         await page.Locator("#marks").SetInputFilesAsync(new FilePayload { Name = "m.csv", MimeType = "text/csv", Buffer = "id,e,n\n"u8.ToArray() });
         await page.Locator("#fixes").SetInputFilesAsync(new FilePayload { Name = "f.csv", MimeType = "text/csv", Buffer = "id,lat,lon\n"u8.ToArray() });
-        var response = await page.RunAndWaitForResponseAsync(() => page.Locator("#upload button[type=submit]").ClickAsync(), "**/ui/assessments");
+        var response = await page.RunAndWaitForResponseAsync(() => page.Locator("#upload button[type=submit]").ClickAsync(), "**/ui/assessments?form=*");
         await page.WaitForLoadStateAsync();
 
         Assert.True(response.Status is >= 400 and < 500, $"status {response.Status}");
