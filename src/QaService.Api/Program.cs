@@ -8,6 +8,7 @@ using QaService.Api.Security;
 using QaService.Api.Sharing;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
+using QaService.Api.Upload;
 
 StartupErrors.ExitOnConfigurationError();
 
@@ -30,6 +31,7 @@ app.MapAdmin();
 app.MapScreening();
 app.MapShareLinks();
 app.MapSharedReports();
+app.MapGuidedUpload();
 
 await app.RunAsync();
 

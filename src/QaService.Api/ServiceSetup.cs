@@ -34,6 +34,7 @@ internal static class ServiceSetup
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
         builder.Services.AddOptions<WarmUp.WarmUpOptions>().BindConfiguration(WarmUp.WarmUpOptions.Section);
+        builder.Services.AddOptions<Upload.UploadStagingOptions>().BindConfiguration(Upload.UploadStagingOptions.Section).ValidateDataAnnotations().ValidateOnStart();
 
         // Read now as well (Kestrel, the rate limiter and the timeout policy are built from it), so check it now too.
         var limits = builder.Configuration.GetSection(LimitsOptions.Section).Get<LimitsOptions>() ?? new LimitsOptions();
@@ -52,7 +53,6 @@ internal static class ServiceSetup
         builder.Services.AddSingleton<Sharing.ShareLinkSigning>();
         builder.Services.AddSingleton(TimeProvider.System);
         builder.Services.AddHttpContextAccessor();
-        builder.Services.AddAntiforgery();
         builder.Services.AddSingleton<ITenantContext, HttpTenantContext>();
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
         builder.Services.AddSingleton<QaMetrics>();

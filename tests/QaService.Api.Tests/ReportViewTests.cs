@@ -88,6 +88,15 @@ public sealed class ReportViewTests : IClassFixture<DemoServiceHost>
     }
 
     [Fact]
+    public async Task A_form_post_without_the_pages_antiforgery_token_is_refused()
+    {
+        using var request = new HttpRequestMessage(HttpMethod.Post, "/ui/assessments?af=forged") { Content = new MultipartFormDataContent() };
+        var response = await client.SendAsync(request);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Contains("The form was not accepted", await response.Content.ReadAsStringAsync());
+    }
+
+    [Fact]
     public async Task A_cross_site_form_post_is_refused()
     {
         // A page elsewhere has no antiforgery token of this service: refused before anything is read (400).

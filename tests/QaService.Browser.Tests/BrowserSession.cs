@@ -36,12 +36,16 @@ internal sealed class BrowserSession : IAsyncDisposable
 
     public List<string> Dialogs { get; } = [];
 
-    public static async Task<BrowserSession> OpenAsync(LiveService service, int width = 1100, int height = 900)
+    /// <param name="javaScript">False for a browser with script turned off (the pages must work without it).</param>
+    /// <param name="bypassCsp">True only where a test injects its own script (the axe audit); the pages' policy stays tested elsewhere.</param>
+    public static async Task<BrowserSession> OpenAsync(LiveService service, int width = 1100, int height = 900, bool javaScript = true, bool bypassCsp = false)
     {
         var context = await service.Browser.NewContextAsync(new BrowserNewContextOptions
         {
             ViewportSize = new ViewportSize { Width = width, Height = height },
             BaseURL = service.BaseAddress.ToString(),
+            JavaScriptEnabled = javaScript,
+            BypassCSP = bypassCsp,
         });
         return new BrowserSession(context, await context.NewPageAsync());
     }

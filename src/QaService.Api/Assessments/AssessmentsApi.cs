@@ -124,6 +124,29 @@ internal static class AssessmentsApi
         return (RequestValidator.Validate(body), null, null);
     }
 
+    /// <summary>
+    /// Validates, runs and stores an upload already read into parts (the guided upload's run): the same rules as a
+    /// multipart POST. Returns the new report's id, or the input errors (pointers as the multipart API gives them), or
+    /// a problem other than bad input (the point cap).
+    /// </summary>
+    internal static async Task<(string? Id, IReadOnlyList<InputError> Errors, IResult? Problem)> CreateFromPartsAsync(
+        UploadOptions options, PartReading marks, PartReading fixes, IReportStore store, string tenant, LimitsOptions limits,
+        TimeProvider clock, QaMetrics metrics, ILogger logger, CancellationToken cancellationToken)
+    {
+        if (PointCap.Check(limits, ("/marks", marks.Points.Count), ("/fixes", fixes.Points.Count)) is { } tooMany)
+            return (null, [], tooMany);
+        var (outcome, ingest) = UploadValidation.Validate(options, marks, fixes);
+        if (outcome.Assessment is null)
+            return (null, outcome.Errors, null);
+        var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
+        await using (var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken))
+            await store.SaveAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
+        var verdict = VerdictText(report);
+        AssessmentLog.Created(logger, report.Id, verdict, report.Counts.Paired);
+        metrics.AssessmentStored(verdict, report.Counts.Marks + report.Counts.Fixes);
+        return (report.Id, [], null);
+    }
+
     internal static async Task<IResult> GetAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken)
     {
         var json = ReportIds.IsPlausible(id) ? await store.OpenJsonAsync(tenant.TenantId, id, cancellationToken) : null;

@@ -9,8 +9,9 @@ using static QaService.Core.Reporting.Html.HtmlText;
 namespace QaService.Api.Home;
 
 /// <summary>
-/// The small web UI at <c>/</c>: recent assessments and an upload form whose parts are exactly the contract's
-/// multipart request (<c>options</c>, <c>marks</c>, <c>fixes</c>). Server-rendered, no script.
+/// The small web UI at <c>/</c>: recent assessments, the way into the guided upload (<see cref="Upload.GuidedUploadApi"/>)
+/// and, for those who write JSON, an upload form whose parts are exactly the contract's multipart request
+/// (<c>options</c>, <c>marks</c>, <c>fixes</c>). Server-rendered, no script.
 /// </summary>
 internal static class HomePage
 {
@@ -35,7 +36,7 @@ internal static class HomePage
         routes.MapSignIn();
     }
 
-    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, CancellationToken cancellationToken)
+    private static async Task<IResult> ShowAsync(HttpContext context, IReportStore store, Microsoft.AspNetCore.Antiforgery.IAntiforgery antiforgery, CancellationToken cancellationToken)
     {
         // With API keys required a browser without a session is nobody's tenant: it is asked to sign in.
         if (context.Features.Get<TenantFeature>() is not { } tenant)
@@ -92,7 +93,10 @@ internal static class HomePage
     private static void AppendForm(StringBuilder html, string antiforgeryToken)
     {
         html.Append("<section aria-labelledby=\"upload-h\"><h2 id=\"upload-h\"><span class=\"num\">2</span> Test a new batch</h2>")
-            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}?{UiAntiforgery.QueryField}={Escape(Uri.EscapeDataString(antiforgeryToken))}\" enctype=\"multipart/form-data\">")
+            .Append($"<p class=\"start\"><a id=\"start-guided\" class=\"button\" href=\"{Upload.GuidedUploadApi.Root}/new\">Start a guided upload</a></p>")
+            .Append("<p>Choose each side's coordinate system from the catalog, the standard and the required accuracy, send the two files, check how their first rows are read, then run the test. No JSON to write.</p>")
+            .Append("<h3 id=\"json-h\">Or send the options as JSON</h3>")
+            .Append($"<form id=\"upload\" class=\"upload\" method=\"post\" action=\"{UploadForm.Path}?{UiAntiforgery.QueryField}={Escape(Uri.EscapeDataString(antiforgeryToken))}\" enctype=\"multipart/form-data\" aria-labelledby=\"json-h\">")
             .Append("<p><label for=\"options\">Options (JSON): title, each side's <code>crs</code> and <code>heights</code>, the required accuracy in <code>spec</code>; for CSV files also <code>columns</code>.</label>")
             .Append($"<textarea id=\"options\" name=\"options\" rows=\"9\" spellcheck=\"false\">{Escape(OptionsTemplate)}</textarea></p>")
             .Append("<p><label for=\"marks\">Marks file (the surveyed check points)</label> <input id=\"marks\" name=\"marks\" type=\"file\" required accept=\".csv,.txt,.geojson,.json,.gpx,.nmea,.nma,.log\"></p>")

@@ -17,6 +17,7 @@ internal static class UploadForm
 {
     public const string Path = "/ui/assessments";
 
+
     /// <summary>Endpoint name of POST /v1/assessments.</summary>
     private const string CreateEndpointName = "CreateAssessment";
 
@@ -85,7 +86,8 @@ internal static class UploadForm
         }
     }
 
-    internal static string ErrorPage(int status, string? title, string? detail, IReadOnlyList<(string Pointer, string Message)> errors)
+    internal static string ErrorPage(int status, string? title, string? detail, IReadOnlyList<(string Pointer, string Message)> errors,
+        string backHref = "/", string backText = "Back to the form")
     {
         var html = new StringBuilder();
         PageShell.Open(html, "QaService — upload not accepted", "The upload was not accepted", "QaService");
@@ -99,7 +101,7 @@ internal static class UploadForm
             html.Append("</tbody></table>");
         }
 
-        html.Append("<p><a href=\"/\">Back to the form</a> (your browser's back button keeps what you entered).</p>");
+        html.Append($"<p><a href=\"{Escape(backHref)}\">{Escape(backText)}</a> (your browser's back button keeps what you entered).</p>");
         PageShell.Close(html, "Nothing was stored.");
         return html.ToString();
     }

@@ -14,6 +14,12 @@ internal sealed class SecurityHeadersMiddleware(RequestDelegate next)
     /// <summary>The API explorer: scripts and styles from this origin only.</summary>
     public const string ExplorerPolicy = "default-src 'self'; style-src 'self' 'unsafe-inline'; img-src 'self' data:; base-uri 'none'; frame-ancestors 'none'";
 
+    /// <summary>
+    /// <see cref="HttpContext.Items"/> key of a page's own policy (a page with a hashed inline script); such a policy must
+    /// add to <see cref="PagePolicy"/>, and gets its frame-ancestors appended here.
+    /// </summary>
+    public const string PagePolicyItem = "QaService.PagePolicy";
+
     public Task InvokeAsync(HttpContext context)
     {
         // At response start, so answers written after a Response.Clear (fault handler, timeouts) carry them too.
@@ -32,7 +38,8 @@ internal sealed class SecurityHeadersMiddleware(RequestDelegate next)
         headers.XFrameOptions = "DENY";
         headers["Referrer-Policy"] = "no-referrer";
         headers["Cross-Origin-Opener-Policy"] = "same-origin";
-        headers.ContentSecurityPolicy = context.Request.Path.StartsWithSegments("/swagger") ? ExplorerPolicy : PagePolicy;
+        headers.ContentSecurityPolicy = context.Items[PagePolicyItem] is string own ? own + "; frame-ancestors 'none'"
+            : context.Request.Path.StartsWithSegments("/swagger") ? ExplorerPolicy : PagePolicy;
         if (context.Request.Path.StartsWithSegments("/v1"))
             headers.CacheControl = "no-store";
     }

@@ -23,6 +23,7 @@ internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<
 {
     private static readonly PathString ApiRoot = "/v1";
     private static readonly PathString AdminRoot = "/v1/admin";
+    private static readonly PathString GuidedUploadRoot = Upload.GuidedUploadApi.Root;
 
     public async Task InvokeAsync(HttpContext context)
     {
@@ -80,8 +81,10 @@ internal sealed class TenantResolutionMiddleware(RequestDelegate next, IOptions<
             context.User = signedIn.Principal;
             var method = context.Request.Method;
             bool safe = HttpMethods.IsGet(method) || HttpMethods.IsHead(method) || HttpMethods.IsOptions(method);
-            // Header checked first: without it antiforgery would read a form body, which this must never do here.
-            if (safe || (context.Request.Headers.ContainsKey(PeopleAuthentication.AntiforgeryHeader) && await antiforgery.IsRequestValidAsync(context)))
+            // Header checked first: without it antiforgery would read a form body, which this must never do here. The
+            // guided upload's pages post ordinary forms and check their token themselves (GuidedUploadApi.Refused).
+            if (safe || context.Request.Path.StartsWithSegments(GuidedUploadRoot)
+                || (context.Request.Headers.ContainsKey(PeopleAuthentication.AntiforgeryHeader) && await antiforgery.IsRequestValidAsync(context)))
             {
                 await ContinueAsAsync(context, new TenantFeature(signedIn.TenantId, IsAdmin: false));
                 return;

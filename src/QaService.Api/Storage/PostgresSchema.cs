@@ -78,6 +78,22 @@ internal static class PostgresSchema
             value text NOT NULL
         );
         """,
+        // 6: files staged by the guided upload between preview and run (tenant-scoped, keyed by the SHA-256 of an
+        // unguessable token, removed when run or expired), so any instance can serve the next step.
+        """
+        CREATE TABLE staged_uploads (
+            token_hash text        NOT NULL PRIMARY KEY,
+            tenant     text        NOT NULL,
+            created_at timestamptz NOT NULL,
+            expires_at timestamptz NOT NULL,
+            settings   text,
+            marks_name text,
+            marks      bytea,
+            fixes_name text,
+            fixes      bytea
+        );
+        CREATE INDEX staged_uploads_expiry ON staged_uploads (expires_at);
+        """,
     ];
 
     /// <summary>The schema version this build migrates to (the number of migrations).</summary>

@@ -52,6 +52,22 @@ internal static class SqliteSchema
             value TEXT NOT NULL
         );
         """,
+        // 5: files staged by the guided upload between preview and run (tenant-scoped, keyed by the SHA-256 of an
+        // unguessable token, removed when run or expired; times are Unix milliseconds, UTC).
+        """
+        CREATE TABLE staged_uploads (
+            token_hash    TEXT    NOT NULL PRIMARY KEY,
+            tenant        TEXT    NOT NULL,
+            created_ms    INTEGER NOT NULL,
+            expires_ms    INTEGER NOT NULL,
+            settings      TEXT,
+            marks_name    TEXT,
+            marks         BLOB,
+            fixes_name    TEXT,
+            fixes         BLOB
+        );
+        CREATE INDEX staged_uploads_expiry ON staged_uploads (expires_ms);
+        """,
     ];
 
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)

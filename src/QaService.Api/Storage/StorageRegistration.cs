@@ -21,12 +21,14 @@ internal static class StorageRegistration
             services.AddSingleton<IReportStore, PostgresReportStore>();
             services.AddSingleton<ITenantStore, PostgresTenantStore>();
             services.AddSingleton<IShareLinkStore, PostgresShareLinkStore>();
+            services.AddSingleton<IUploadStagingStore, PostgresUploadStagingStore>();
         }
         else
         {
             services.AddSingleton<IReportStore, SqliteReportStore>();
             services.AddSingleton<ITenantStore, SqliteTenantStore>();
             services.AddSingleton<IShareLinkStore, SqliteShareLinkStore>();
+            services.AddSingleton<IUploadStagingStore, SqliteUploadStagingStore>();
         }
         return services;
     }

@@ -127,16 +127,36 @@ public sealed class CsvFieldReader(IReadOnlyDictionary<string, string>? columns,
                 throw new FieldFileException(headerLine, $"the column map names \"{header}\" for {field}, but the header row has no such column (it has: {string.Join(", ", headers.Select(h => h.Trim()))})");
             index[field] = i;
         }
-        foreach (var field in ContractFields.All.Where(f => !index.ContainsKey(f)))
-        {
-            if (byHeader.TryGetValue(field, out var i) && !index.ContainsValue(i))
-                index[field] = i;
-        }
+        AddContractNamed(byHeader, index);
         if (index.Count == 0)
             throw new FieldFileException(headerLine, $"no column of the header row is a contract field ({string.Join(", ", ContractFields.All)}) and no column map was given; name the columns in the options' \"columns\"");
         foreach (var (field, i) in index)
             columnNames[field] = headers[i].Trim();
         return index;
+    }
+
+    /// <summary>
+    /// What the reader maps without a column map: each contract field to the first header equal to its name
+    /// (case-insensitive, trimmed), contract field → header text. The guided upload preselects its column choices from this.
+    /// </summary>
+    public static IReadOnlyDictionary<string, string> DetectColumns(IReadOnlyList<string> headers)
+    {
+        var byHeader = new Dictionary<string, int>(StringComparer.OrdinalIgnoreCase);
+        for (var i = 0; i < headers.Count; i++)
+            byHeader.TryAdd(headers[i].Trim(), i);
+        var index = new Dictionary<string, int>(StringComparer.Ordinal);
+        AddContractNamed(byHeader, index);
+        return index.ToDictionary(p => p.Key, p => headers[p.Value].Trim(), StringComparer.Ordinal);
+    }
+
+    /// <summary>Fields not yet mapped take a header that is their own name, unless that column is taken.</summary>
+    private static void AddContractNamed(Dictionary<string, int> byHeader, Dictionary<string, int> index)
+    {
+        foreach (var field in ContractFields.All.Where(f => !index.ContainsKey(f)))
+        {
+            if (byHeader.TryGetValue(field, out var i) && !index.ContainsValue(i))
+                index[field] = i;
+        }
     }
 
     private static string Show(char c) => c == '\t' ? "tab" : c.ToString();

@@ -54,6 +54,24 @@ public sealed class PostgresStoreTests
     }
 
     [PostgresFact]
+    public async Task A_guided_upload_staged_on_one_instance_is_previewed_and_run_on_the_other()
+    {
+        using var first = new QaServiceFactory(extra: PostgresFactAttribute.Settings());
+        using var second = new QaServiceFactory(extra: PostgresFactAttribute.Settings());
+        var (marks, fixes) = GuidedUploadClient.DemoFiles();
+        var staged = await GuidedUploadClient.For(first).StageAsync(GuidedUploadClient.DemoSettings(), marks, fixes);
+        Assert.Equal(HttpStatusCode.SeeOther, staged.StatusCode);
+        var preview = staged.Headers.Location!.OriginalString;
+
+        // Each instance signs its own antiforgery tokens, so the other instance's form is fetched first (as a browser would).
+        var other = GuidedUploadClient.For(second);
+        Assert.Contains("<th scope=\"col\">lat</th>", await other.Http.GetStringAsync(preview));
+        var run = await other.RunAsync(preview, new Dictionary<string, string>());
+        Assert.Equal(HttpStatusCode.SeeOther, run.StatusCode);
+        Assert.Equal(HttpStatusCode.OK, (await first.CreateClient().GetAsync(run.Headers.Location)).StatusCode);
+    }
+
+    [PostgresFact]
     public async Task Reports_read_back_unchanged_after_a_restart()
     {
         string created;
@@ -139,6 +157,18 @@ public sealed class PostgresStoreTests
             Assert.False(await tenants.CreateAsync(tenant with { Id = "t2", KeyHash = new string('b', 64) }, CancellationToken.None));
             Assert.Equal("north", (await tenants.FindByKeyHashAsync(new string('a', 64), CancellationToken.None))?.Name);
             Assert.Null(await tenants.FindByKeyHashAsync(new string('c', 64), CancellationToken.None));
+
+            // Staged uploads: found only with their tenant; bytes kept exactly; expired rows removed.
+            var staging = new PostgresUploadStagingStore(sources[2]);
+            var bytes = Enumerable.Range(0, 256).Select(i => (byte)i).ToArray();
+            var staged = new StagedUpload("t1", new string('d', 64), DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch.AddHours(1), "{}", new StagedFile("m.csv", bytes), null);
+            await staging.SaveAsync(staged, CancellationToken.None);
+            Assert.Equal(bytes, (await staging.FindAsync("t1", staged.TokenHash, CancellationToken.None))?.Marks?.Content);
+            Assert.Null(await staging.FindAsync("t2", staged.TokenHash, CancellationToken.None));
+            await staging.SaveAsync(staged with { Tenant = "t2", Settings = "{\"other\":1}" }, CancellationToken.None);
+            Assert.Equal("{}", (await staging.FindAsync("t1", staged.TokenHash, CancellationToken.None))?.Settings);
+            Assert.Equal(1, await staging.DeleteExpiredAsync(DateTimeOffset.UnixEpoch.AddHours(2), CancellationToken.None));
+            Assert.Null(await staging.FindAsync("t1", staged.TokenHash, CancellationToken.None));
         }
         finally
         {

@@ -18,10 +18,12 @@ public static class PageShell
         "<circle cx=\"22\" cy=\"22\" r=\"10\" fill=\"none\" stroke=\"#b8482a\" stroke-width=\"2.5\"/><path d=\"M22 0v12M22 32v12M0 22h12M32 22h12\" stroke=\"#1f2a30\" stroke-width=\"2\"/>" +
         "<circle cx=\"26\" cy=\"18\" r=\"3.2\" fill=\"#24557a\"/></svg>";
 
-    public static void Open(StringBuilder html, string title, string heading, string brand)
+    /// <param name="policy">The page's policy when it differs from <see cref="ContentSecurityPolicy"/> (a page with its own hashed script);
+    /// a constant of this service (no double quote), written as is.</param>
+    public static void Open(StringBuilder html, string title, string heading, string brand, string? policy = null)
     {
         html.Append("<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">")
-            .Append($"<meta http-equiv=\"Content-Security-Policy\" content=\"{ContentSecurityPolicy}\">")
+            .Append($"<meta http-equiv=\"Content-Security-Policy\" content=\"{policy ?? ContentSecurityPolicy}\">")
             .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"><meta name=\"referrer\" content=\"no-referrer\">")
             .Append("<link rel=\"icon\" href=\"data:,\">")
             .Append($"<title>{Escape(title)}</title><style>{PageStyle.Css}</style></head><body>")
@@ -30,6 +32,7 @@ public static class PageShell
             .Append("<main id=\"main\">");
     }
 
-    public static void Close(StringBuilder html, string footer) =>
-        html.Append($"</main><footer>{footer}</footer></body></html>");
+    /// <param name="script">Markup placed at the end of the body (an inline script the page's policy allows), or null.</param>
+    public static void Close(StringBuilder html, string footer, string? script = null) =>
+        html.Append($"</main><footer>{footer}</footer>{script}</body></html>");
 }

@@ -98,6 +98,36 @@ public static class PageStyle
         .upload textarea{width:100%;font:13px/1.45 ui-monospace,Menlo,Consolas,monospace;padding:.5rem;border:1px solid #9a9384;border-radius:4px;background:#fff;color:var(--ink)}
         .upload button{font:inherit;font-weight:700;padding:.45rem 1.2rem;border:0;border-radius:4px;background:var(--ink);color:var(--paper);cursor:pointer}
         .upload button:focus-visible,.upload input:focus-visible,.upload textarea:focus-visible{outline:3px solid var(--rule);outline-offset:2px}
+        .upload .field{margin:0 0 1rem}
+        .upload input[type=text],.upload select{font:inherit;padding:.35rem .5rem;border:1px solid #6f6a5f;border-radius:4px;background:#fff;color:var(--ink);max-width:100%}
+        .upload input[type=text]{width:24rem}
+        .upload input[aria-invalid=true],.upload select[aria-invalid=true]{border:2px solid var(--fail)}
+        .upload .inline{display:flex;flex-wrap:wrap;gap:.4rem;align-items:center}
+        .upload .inline label.unit{display:inline;font-weight:400;margin:0}
+        .upload button.secondary{background:var(--panel);color:var(--ink);border:1px solid var(--ink);font-weight:600;padding:.3rem .9rem}
+        .upload select:focus-visible,.upload button:focus-visible{outline:3px solid var(--rule);outline-offset:2px}
+        a.button{display:inline-block;font-weight:700;padding:.5rem 1.3rem;border-radius:4px;background:var(--ink);color:var(--paper);text-decoration:none}
+        a.button:focus-visible{outline:3px solid var(--rule);outline-offset:2px}
+        .hint{font-size:.85rem;color:var(--muted);margin:.1rem 0 .3rem}
+        .field-error{color:var(--fail);background:var(--fail-bg);border-left:4px solid var(--fail);padding:.2rem .5rem;margin:.2rem 0 .3rem;font-size:.9rem}
+        .error-summary{border:3px solid var(--fail);padding:.4rem 1rem;margin:1rem 0;background:#fff}
+        .error-summary h2{margin:.3rem 0;border:0;color:var(--fail)}
+        .error-summary a{color:var(--fail);font-weight:600}
+        .chosen{margin:.3rem 0 0;font-size:.9rem}
+        .matches{border:1px solid var(--line);border-radius:4px;margin:0 0 1rem;padding:.4rem .8rem;max-height:22rem;overflow-y:auto}
+        .matches legend{font-weight:600;padding:0 .3rem}
+        .upload .choice label{display:inline;font-weight:400}
+        .choice{margin:.2rem 0}
+        .columns{border:1px solid var(--line);border-radius:4px;padding:.4rem .8rem;margin:.6rem 0 1rem}
+        .columns legend{font-weight:600;padding:0 .3rem}
+        .colmap{display:grid;grid-template-columns:repeat(auto-fill,minmax(15rem,1fr));gap:0 1rem}
+        .colmap .field{margin:.3rem 0}
+        .upload .colmap label{font-weight:400}
+        .scroll{overflow-x:auto}
+        .scroll:focus-visible{outline:3px solid var(--rule)}
+        .row-errors code{white-space:pre-wrap;word-break:break-all}
+        .progress{margin:.6rem 0}.progress progress{width:20rem;max-width:100%;vertical-align:middle}
+        .visually-hidden{position:absolute;width:1px;height:1px;overflow:hidden;clip:rect(0 0 0 0);white-space:nowrap;border:0;padding:0;margin:-1px}
         footer{margin-top:2.5rem;padding-top:.6rem;border-top:1px solid var(--line);font-size:.8rem;color:var(--muted)}
         .skip{position:absolute;left:-999px}.skip:focus{left:1rem;top:1rem;background:#fff;padding:.3rem}
         @page{margin:15mm 15mm 16mm}
