@@ -7,6 +7,8 @@ using QaService.Api.Reports;
 using QaService.Api.Security;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
+using QaService.Api.Projects;
+using QaService.Api.SignOff;
 
 // Settings ship beside the binary; the working folder is only where data/ goes.
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
@@ -22,6 +24,8 @@ app.MapTransform();
 app.MapCrs();
 app.MapAdmin();
 app.MapScreening();
+app.MapProjects();
+app.MapDecisions();
 
 await app.RunAsync();
 

@@ -20,11 +20,15 @@ internal static class StorageRegistration
             services.AddSingleton(provider => new NpgsqlDataSourceBuilder(provider.GetRequiredService<IOptions<StorageOptions>>().Value.EffectiveConnectionString).Build());
             services.AddSingleton<IReportStore, PostgresReportStore>();
             services.AddSingleton<ITenantStore, PostgresTenantStore>();
+            services.AddSingleton<IProjectStore, PostgresProjectStore>();
+            services.AddSingleton<IDecisionStore, PostgresDecisionStore>();
         }
         else
         {
             services.AddSingleton<IReportStore, SqliteReportStore>();
             services.AddSingleton<ITenantStore, SqliteTenantStore>();
+            services.AddSingleton<IProjectStore, SqliteProjectStore>();
+            services.AddSingleton<IDecisionStore, SqliteDecisionStore>();
         }
         return services;
     }
