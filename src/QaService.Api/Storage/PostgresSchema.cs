@@ -72,6 +72,9 @@ internal static class PostgresSchema
         """,
     ];
 
+    /// <summary>How many migrations this build has (the version a migrated database records last).</summary>
+    public static int Count => Migrations.Length;
+
     public static async Task MigrateAsync(NpgsqlDataSource dataSource, CancellationToken cancellationToken)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancellationToken);
