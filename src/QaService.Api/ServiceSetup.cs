@@ -67,17 +67,7 @@ internal static class ServiceSetup
             context.ProblemDetails.Extensions["traceId"] = context.HttpContext.TraceIdentifier;
             context.ProblemDetails.Detail ??= DefaultProblemDetail.For(context.HttpContext);
         });
-        builder.Services.AddOpenApi(options =>
-        {
-            options.AddSchemaTransformer<FieldDescriptionTransformer>();
-            options.AddOperationTransformer<RequestBodyTransformer>();
-            options.AddDocumentTransformer((document, _, _) =>
-            {
-                document.Info.Title = "QaService";
-                document.Info.Description = "Positional accuracy testing of GNSS field positions against surveyed check points (NSSDA, RMSE, CEP). Lengths in metres unless a field says otherwise.";
-                return Task.CompletedTask;
-            });
-        });
+        builder.Services.AddQaServiceOpenApi();
         return builder;
     }
 

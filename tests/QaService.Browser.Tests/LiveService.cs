@@ -1,7 +1,5 @@
-using System.Diagnostics;
-using System.Net;
-using System.Net.Sockets;
 using Microsoft.Playwright;
+using QaService.Tests.Shared;
 
 namespace QaService.Browser.Tests;
 
@@ -18,10 +16,7 @@ public sealed class LiveService : IAsyncLifetime
     private static readonly string[] ChromiumArgs =
         ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
 
-    private static readonly TimeSpan StartupTimeout = TimeSpan.FromSeconds(60);
-
-    private readonly string folder = Path.Combine(Path.GetTempPath(), $"qaservice-browser-{Guid.NewGuid():N}");
-    private Process? service;
+    private ServiceProcess? service;
     private IPlaywright? playwright;
 
     public static bool ChromiumInstalled => File.Exists(ChromiumPath);
@@ -29,11 +24,11 @@ public sealed class LiveService : IAsyncLifetime
     /// <summary>Why the browser tests did not run, or null when they do.</summary>
     public static string? SkipReason => ChromiumInstalled ? null : $"SKIPPED (not a failure): {ChromiumPath} not found; install Debian's chromium (apt-get install -y chromium) to run the browser tests.";
 
-    public Uri BaseAddress { get; private set; } = new("http://127.0.0.1/");
+    public Uri BaseAddress => service?.BaseAddress ?? new Uri("http://127.0.0.1/");
 
     public IBrowser Browser { get; private set; } = null!;
 
-    public HttpClient Http { get; private set; } = null!;
+    public HttpClient Http => service?.Http ?? throw new InvalidOperationException("the service is not running");
 
     /// <summary>Where screenshots and PDFs are kept: TestResults/browser under the test output folder.</summary>
     public static string ArtifactFolder { get; } = Directory.CreateDirectory(Path.Combine(AppContext.BaseDirectory, "TestResults", "browser")).FullName;
@@ -43,31 +38,7 @@ public sealed class LiveService : IAsyncLifetime
         if (!ChromiumInstalled)
             return;
 
-        Directory.CreateDirectory(folder);
-        int port = FreePort();
-        BaseAddress = new Uri($"http://127.0.0.1:{port}/");
-        var start = new ProcessStartInfo("dotnet")
-        {
-            WorkingDirectory = folder,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-        };
-        foreach (var arg in new[]
-                 {
-                     ServiceAssembly(), "--urls", BaseAddress.ToString().TrimEnd('/'),
-                     $"--Storage:ConnectionString=Data Source={Path.Combine(folder, "qaservice.db")}",
-                     "--Demo:Enabled=true", "--Serilog:MinimumLevel:Default=Warning",
-                 })
-            start.ArgumentList.Add(arg);
-        service = Process.Start(start) ?? throw new InvalidOperationException("the service process did not start");
-        service.OutputDataReceived += (_, _) => { };
-        service.ErrorDataReceived += (_, _) => { };
-        service.BeginOutputReadLine();
-        service.BeginErrorReadLine();
-
-        Http = new HttpClient { BaseAddress = BaseAddress };
-        await WaitUntilServingAsync();
-
+        service = await ServiceProcess.StartAsync(new Dictionary<string, string> { ["Demo:Enabled"] = "true" });
         playwright = await Playwright.CreateAsync();
         Browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions { ExecutablePath = ChromiumPath, Headless = true, Args = ChromiumArgs });
     }
@@ -77,66 +48,8 @@ public sealed class LiveService : IAsyncLifetime
         if (Browser is not null)
             await Browser.CloseAsync();
         playwright?.Dispose();
-        Http?.Dispose();
-        if (service is { HasExited: false })
-        {
-            service.Kill(entireProcessTree: true);
-            await service.WaitForExitAsync();
-        }
-
-        service?.Dispose();
-        try
-        {
-            Directory.Delete(folder, recursive: true);
-        }
-        catch (IOException)
-        {
-            // A leftover temp folder is harmless.
-        }
-    }
-
-    /// <summary>The service built beside this project: src/QaService.Api/bin/&lt;configuration&gt;/&lt;tfm&gt;/QaService.Api.dll.</summary>
-    private static string ServiceAssembly()
-    {
-        var here = new DirectoryInfo(AppContext.BaseDirectory);
-        string tfm = here.Name, configuration = here.Parent!.Name;
-        var root = here;
-        while (root is not null && !File.Exists(Path.Combine(root.FullName, "QaService.sln")))
-            root = root.Parent;
-        if (root is null)
-            throw new InvalidOperationException("QaService.sln not found above the test output folder");
-        var dll = Path.Combine(root.FullName, "src", "QaService.Api", "bin", configuration, tfm, "QaService.Api.dll");
-        return File.Exists(dll) ? dll : throw new FileNotFoundException("build the solution first", dll);
-    }
-
-    private static int FreePort()
-    {
-        using var listener = new TcpListener(IPAddress.Loopback, 0);
-        listener.Start();
-        return ((IPEndPoint)listener.LocalEndpoint).Port;
-    }
-
-    private async Task WaitUntilServingAsync()
-    {
-        var deadline = DateTime.UtcNow + StartupTimeout;
-        while (DateTime.UtcNow < deadline)
-        {
-            if (service!.HasExited)
-                throw new InvalidOperationException($"the service exited with code {service.ExitCode} before serving");
-            try
-            {
-                if ((await Http.GetAsync("readyz")).IsSuccessStatusCode)
-                    return;
-            }
-            catch (HttpRequestException)
-            {
-                // Not listening yet.
-            }
-
-            await Task.Delay(200);
-        }
-
-        throw new TimeoutException($"the service did not answer /readyz within {StartupTimeout.TotalSeconds} s");
+        if (service is not null)
+            await service.DisposeAsync();
     }
 }
 

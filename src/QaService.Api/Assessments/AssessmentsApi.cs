@@ -29,20 +29,20 @@ internal static class AssessmentsApi
                 "\"marks\" and \"fixes\" (files: CSV with a header row, GeoJSON Point features, GPX 1.1, NMEA 0183 GGA/GST/GSA/RMC; recognised from content). " +
                 "Errors in a file row point at the part and row: /fixes/line/17/lat (CSV, GPX, NMEA: 1-based line) or /fixes/features/3/lat (GeoJSON: 0-based feature).")
             .WithMetadata(new JsonRequestBody(typeof(AssessmentRequest)))
+            .WithMetadata(new MultipartRequestBody(MultipartUploadReader.OptionsPart, typeof(UploadOptions),
+                [MultipartUploadReader.MarksPart, MultipartUploadReader.FixesPart],
+                "A field file: CSV with a header row, GeoJSON (RFC 7946) Point features, GPX 1.1 or NMEA 0183; the format is recognised from the content."))
             .Produces<AssessmentReport>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
-            .ProducesProblem(StatusCodes.Status401Unauthorized)
-            .ProducesProblem(StatusCodes.Status429TooManyRequests);
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
 
         group.MapGet("/{id}", GetAsync)
             .WithName("GetAssessment")
             .WithSummary("Read a stored conformance report")
             .AddEndpointFilter<Reports.HtmlNegotiation>()
             .Produces<AssessmentReport>()
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         return group;
     }

@@ -3,20 +3,20 @@ using QaService.Api.Storage;
 
 namespace QaService.Api.Health;
 
-/// <summary>Liveness and readiness probes (api-v1 "Health").</summary>
+/// <summary>Liveness and readiness probes (api-v1 "Health"); for the platform, so kept out of the OpenAPI document.</summary>
 internal static class HealthApi
 {
     public static void MapHealth(this IEndpointRouteBuilder routes)
     {
         routes.MapGet("/healthz", () => TypedResults.Ok(new ProbeStatus("serving")))
-            .WithName("Liveness").WithSummary("200 while the process serves").WithTags("Health");
+            .WithName("Liveness").WithSummary("200 while the process serves").WithTags("Health").ExcludeFromDescription();
 
         routes.MapGet("/readyz", async (IReportStore store, CancellationToken cancellationToken) =>
                 await store.IsReachableAsync(cancellationToken)
                     ? TypedResults.Ok(new ProbeStatus("ready"))
                     : InputProblems.Status(StatusCodes.Status503ServiceUnavailable, "Storage unreachable", "the report store did not answer; reports can be neither saved nor read"))
             .WithName("Readiness").WithSummary("200 when storage is reachable, 503 otherwise").WithTags("Health")
-            .ProducesProblem(StatusCodes.Status503ServiceUnavailable);
+            .ExcludeFromDescription();
     }
 }
 

@@ -34,28 +34,24 @@ internal static class ProjectsApi
             .Produces<ProjectView>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
 
         group.MapGet("/", ListAsync)
             .WithName("ListProjects")
             .WithSummary("The caller's projects, newest first")
-            .Produces<ProjectList>()
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .Produces<ProjectList>();
 
         group.MapGet("/{id}", GetAsync)
             .WithName("GetProject")
             .WithSummary("A project with its deliveries (oldest first, each with its acceptance and latest decision) and the trend of their figures")
             .Produces<ProjectDetail>()
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         group.MapGet("/{id}/report.html", HtmlAsync)
             .WithName("GetProjectReportHtml")
             .WithSummary("The project as one self-contained HTML page: acceptance of each delivery and the trend plot (inline SVG with a table)")
             .Produces<string>(StatusCodes.Status200OK, "text/html")
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         return group;
     }

@@ -19,22 +19,19 @@ internal static class ReportsApi
             .WithName("GetAssessmentReportHtml")
             .WithSummary("The report as one self-contained HTML page (inline CSS and SVG plots, no script)")
             .Produces<string>(StatusCodes.Status200OK, "text/html")
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         group.MapGet("/residuals.csv", CsvAsync)
             .WithName("GetAssessmentResidualsCsv")
             .WithSummary("The residual table as CSV (RFC 4180; text cells neutralised against spreadsheet formulas)")
             .Produces<string>(StatusCodes.Status200OK, "text/csv")
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         group.MapGet("/residuals.geojson", GeoJsonAsync)
             .WithName("GetAssessmentResidualsGeoJson")
             .WithSummary("The residual vectors as a GeoJSON FeatureCollection (marks in WGS 84 lon/lat, residuals in metres)")
             .Produces<string>(StatusCodes.Status200OK, "application/geo+json")
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         return group;
     }

@@ -26,15 +26,13 @@ internal static class DecisionsApi
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
 
         group.MapGet("/", ListAsync)
             .WithName("ListDecisions")
             .WithSummary("The decisions on a delivery, oldest first")
             .Produces<DecisionList>()
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status401Unauthorized);
+            .ProducesProblem(StatusCodes.Status404NotFound);
 
         DecisionForm.Map(routes);
         return group;

@@ -31,7 +31,6 @@ internal static class TransformApi
             .Produces<TransformResponseSchema>()
             .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status429TooManyRequests)
             .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
         return group;
     }
