@@ -28,6 +28,9 @@ internal static class ServiceSetup
             .WriteTo.Console(new CompactJsonFormatter()));
 
         builder.Services.AddReportStorage(builder.Configuration);
+        // PROJ's grid files (NTv2) are read at run time from this folder; Debian's proj-data installs them in /usr/share/proj.
+        QaService.Core.Geodesy.Transformations.GridFiles.Directory =
+            builder.Configuration["Geodesy:GridDirectory"] ?? QaService.Core.Geodesy.Transformations.GridFiles.DefaultDirectory;
         builder.Services.AddOptions<LimitsOptions>().BindConfiguration(LimitsOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<AuthOptions>().BindConfiguration(AuthOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);

@@ -87,7 +87,7 @@ public sealed class AssessmentErrorTests : IClassFixture<ServiceHost>
         await ProblemAssert.IsBadInputAsync(await client.PostJsonAsync(With(b => Mark0(b)["h"] = 200000.0)), "/marks/points/0/h", "outside");
 
     [Theory]
-    [InlineData("EPSG:2193", "not supported yet")]
+    [InlineData("EPSG:27572", "not supported yet")]
     [InlineData("EPSG:99999", "not supported yet")]
     [InlineData("PROJCS[\"NZGD2000 / New Zealand Transverse Mercator 2000\",GEOGCS[\"NZGD2000\"]]", "has no DATUM")]
     [InlineData("PROJCS[\"x\",GEOGCS[\"g\",DATUM[\"d\",SPHEROID[\"s\",6378137,298.257222101]],PRIMEM[\"Greenwich\",0],UNIT[\"degree\",0.0174532925199433]],PROJECTION[\"Cassini_Soldner\"],UNIT[\"metre\",1]]", "not supported yet")]

@@ -48,7 +48,7 @@ public sealed class CrsApiTests : IClassFixture<CrsApiTests.Host>
     }
 
     [Theory]
-    [InlineData("EPSG:27700")]
+    [InlineData("EPSG:27572")]
     [InlineData("99999")]
     [InlineData("banana")]
     public async Task Unknown_crs_is_a_404_problem(string id) =>

@@ -7,43 +7,30 @@ the dataset may be used and redistributed provided the EPSG attribution is kept 
 the parameters are copied verbatim, only converted to one set of units (metre, arc-second, ppm, per year).
 
 Selection: every non-deprecated Helmert transformation (EPSG methods 1031/1032/1033/1035/1053/1056/9603/9606/9607)
-between two of the datums below. Time-specific method 1065 is left out: it is only valid for coordinates at its
-one epoch, which fixes in general are not. Usage: python3 tools/geodesy/make-helmert-table.py [proj.db] > out.cs
+between two of the datums datum_scope.datums() selects, each with its EPSG area of use. Time-specific method 1065 is
+left out: it is only valid for coordinates at its one epoch, which fixes in general are not.
+With --grids, writes GridTable.g.cs instead: every non-deprecated EPSG NTv2 operation (method 9615) between two
+selected datums whose grid file is in the PROJ data folder (file name as found there, read at run time).
+Usage: python3 tools/geodesy/make-helmert-table.py [proj.db] [grid folder] [--grids] > out.cs
 """
+import os
 import sqlite3
 import sys
 
 DB = sys.argv[1] if len(sys.argv) > 1 else "/usr/share/proj/proj.db"
 
-# EPSG datum codes this service routes between (checked against proj.db's geodetic_datum table).
-DATUMS = {
-    6326: "World Geodetic System 1984 ensemble",
-    1156: "World Geodetic System 1984 (G1762)",
-    1309: "World Geodetic System 1984 (G2139)",
-    1061: "International Terrestrial Reference Frame 2008",
-    1165: "International Terrestrial Reference Frame 2014",
-    1322: "International Terrestrial Reference Frame 2020",
-    1186: "European Terrestrial Reference Frame 2000",
-    6258: "European Terrestrial Reference System 1989 ensemble",
-    1116: "NAD83 (National Spatial Reference System 2011)",
-    6269: "North American Datum 1983",
-    6140: "NAD83 Canadian Spatial Reference System",
-    6283: "Geocentric Datum of Australia 1994",
-    1168: "Geocentric Datum of Australia 2020",
-}
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import datum_scope  # noqa: E402
 
-METHODS = {
-    1031: ("PositionVector", False), 1035: ("PositionVector", False), 9603: ("PositionVector", False),
-    1033: ("PositionVector", False), 9606: ("PositionVector", False),
-    1032: ("CoordinateFrame", False), 9607: ("CoordinateFrame", False),
-    1053: ("PositionVector", True), 1056: ("CoordinateFrame", True),
-}
+GRID_FOLDER = sys.argv[2] if len(sys.argv) > 2 else "/usr/share/proj"
+METHODS = datum_scope.HELMERT_METHODS
 
 # Factor from the EPSG unit to the table's unit (metre, arc-second, ppm; rates per year). Exact by definition.
-LENGTH = {9001: 1.0, 1025: 1e-3}
-ANGLE = {9104: 1.0, 1031: 1e-3, 9101: 648000.0 / 3.141592653589793, 9109: 648000.0 / 3.141592653589793 * 1e-6}
-SCALE = {9202: 1.0, 1028: 1e-3}
-LENGTH_RATE = {1042: 1.0, 1027: 1e-3}
+LENGTH = {9001: 1.0, 1025: 1e-3, 1033: 1e-2}
+ANGLE = {9104: 1.0, 1031: 1e-3, 9101: 648000.0 / 3.141592653589793, 9109: 648000.0 / 3.141592653589793 * 1e-6,
+         9113: 0.324}  # centesimal second: 1e-4 gon = 0.9e-4 degree = 0.324 arc-second
+SCALE = {9202: 1.0, 1028: 1e-3, 9201: 1e6}  # 9201 unity: a scale difference given as a plain ratio
+LENGTH_RATE = {1042: 1.0, 1027: 1e-3, 1034: 1e-2}
 ANGLE_RATE = {1043: 1.0, 1032: 1e-3}
 SCALE_RATE = {1041: 1.0, 1030: 1e-3}
 
@@ -65,7 +52,66 @@ def lit(x):
 
 con = sqlite3.connect(DB)
 meta = dict(con.execute("select key, value from metadata"))
+DATUMS = datum_scope.datums(con.execute, GRID_FOLDER)
 codes = ",".join(str(c) for c in DATUMS)
+
+
+def area(table, code):
+    """The EPSG extent of an operation as C# (first usage, as the catalog does for CRSs)."""
+    s_, n_, w_, e_, name_ = con.execute(
+        "select e.south_lat, e.north_lat, e.west_lon, e.east_lon, e.name from usage u join extent e on "
+        "e.auth_name=u.extent_auth_name and e.code=u.extent_code where u.object_table_name=? and u.object_auth_name='EPSG' "
+        "and u.object_code=? order by cast(u.code as integer) limit 1", (table, code)).fetchone()
+    return f'new AreaOfUse("{name_}", {lit(s_)}, {lit(n_)}, {lit(w_)}, {lit(e_)})'
+
+
+def ellipsoid(datum):
+    name_, a_, rf_, b_, uom = con.execute(
+        "select e.name, e.semi_major_axis, e.inv_flattening, e.semi_minor_axis, e.uom_code from geodetic_datum d join ellipsoid e "
+        "on e.auth_name=d.ellipsoid_auth_name and e.code=d.ellipsoid_code where d.auth_name='EPSG' and d.code=?", (datum,)).fetchone()
+    factor = con.execute("select conv_factor from unit_of_measure where auth_name='EPSG' and code=?", (uom,)).fetchone()[0]
+    a_ = a_ * factor
+    rf_ = rf_ if rf_ else a_ / (a_ - b_ * factor)
+    return f'new Ellipsoid("{name_}", {lit(a_)}, {lit(rf_)})'
+
+
+if "--grids" in sys.argv:
+    present, _ = datum_scope.grid_links(con.execute, GRID_FOLDER)
+    chosen = {c: (f, inv) for c, s_, t_, f, inv in present if s_ in DATUMS and t_ in DATUMS}
+    lines = []
+    for code, name, sd, td, acc in con.execute(
+            "select g.code, g.name, gs.datum_code, gt.datum_code, g.accuracy from grid_transformation g "
+            "join geodetic_crs gs on gs.auth_name=g.source_crs_auth_name and gs.code=g.source_crs_code "
+            "join geodetic_crs gt on gt.auth_name=g.target_crs_auth_name and gt.code=g.target_crs_code "
+            "where g.auth_name='EPSG' order by cast(g.code as integer)"):
+        if int(code) not in chosen:
+            continue
+        file, inverse = chosen[int(code)]
+        lines.append(
+            f'        new(EpsgCode: {code}, Name: "{name}", SourceDatum: "EPSG:{sd}", TargetDatum: "EPSG:{td}", AccuracyMetres: {lit(acc)},\n'
+            f'            FileName: "{file}", FileIsInverse: {"true" if inverse else "false"}, Package: "{datum_scope.GRID_PACKAGE}",\n'
+            f'            SourceEllipsoid: {ellipsoid(sd)}, TargetEllipsoid: {ellipsoid(td)},\n'
+            f'            Area: {area("grid_transformation", code)}),')
+    print(f"""// <auto-generated>
+// Made by tools/geodesy/make-helmert-table.py --grids from proj.db of PROJ {meta.get('PROJ.VERSION')} (proj-data {meta.get('PROJ_DATA.VERSION')}).
+// Data: EPSG Geodetic Parameter Dataset {meta.get('EPSG.VERSION')} ({meta.get('EPSG.DATE')}), (c) IOGP, https://epsg.org —
+// used under the EPSG terms of use (https://epsg.org/terms-of-use.html). Grid files are PROJ's (Debian package
+// proj-data), read at run time from the configured grid folder. Regenerate, do not edit.
+// </auto-generated>
+using QaService.Core.Geodesy.Catalog;
+
+namespace QaService.Core.Geodesy.Transformations;
+
+/// <summary>EPSG NTv2 grid transformations between the service's datums whose grid file Debian's proj-data ships (generated).</summary>
+public static class GridTable
+{{
+    /// <summary>Every such transformation, in EPSG code order.</summary>
+    public static IReadOnlyList<GridTransformationDefinition> Transformations {{ get; }} =
+    [
+{chr(10).join(lines)}
+    ];
+}}""")
+    sys.exit(0)
 rows = con.execute(f"""
 select h.code, h.name, h.method_code, gs.datum_code, gt.datum_code, h.accuracy,
        h.tx, h.ty, h.tz, h.translation_uom_code, h.rx, h.ry, h.rz, h.rotation_uom_code,
@@ -107,7 +153,8 @@ for r in rows:
         f'        new(EpsgCode: {code}, Name: "{name}", MethodCode: {method}, SourceDatum: "EPSG:{sd}", TargetDatum: "EPSG:{td}",\n'
         f'            AccuracyMetres: {lit(acc)}, new HelmertParameters(HelmertConvention.{convention},\n'
         f'                {", ".join(lit(v) for v in t)}, {", ".join(lit(v) for v in rot)}, {lit(s)},\n'
-        f'                {", ".join(lit(v) for v in dt)}, {", ".join(lit(v) for v in dr)}, {lit(dsr)}, {ep})),')
+        f'                {", ".join(lit(v) for v in dt)}, {", ".join(lit(v) for v in dr)}, {lit(dsr)}, {ep}),\n'
+        f'            {area("helmert_transformation", code)}),')
 
 print(f"""// <auto-generated>
 // Made by tools/geodesy/make-helmert-table.py from proj.db of PROJ {meta.get('PROJ.VERSION')} (proj-data {meta.get('PROJ_DATA.VERSION')}).
@@ -115,6 +162,8 @@ print(f"""// <auto-generated>
 // used under the EPSG terms of use (https://epsg.org/terms-of-use.html); parameters copied unaltered, only
 // converted to metres, arc-seconds and parts per million (rates per year). Regenerate, do not edit.
 // </auto-generated>
+using QaService.Core.Geodesy.Catalog;
+
 namespace QaService.Core.Geodesy.Transformations;
 
 /// <summary>EPSG Helmert transformations between the datums this service routes between (generated).</summary>

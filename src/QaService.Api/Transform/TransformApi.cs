@@ -90,6 +90,19 @@ internal static class TransformApi
             writer.WriteEndArray();
             writer.WriteString("operation", result.Operation);
             writer.WriteNumber("accuracy", result.AccuracyMetres);
+            writer.WriteStartArray("warnings");
+            foreach (var warning in result.Warnings)
+            {
+                writer.WriteStartObject();
+                writer.WriteString("code", warning.Code);
+                writer.WriteString("message", warning.Message);
+                writer.WriteStartArray("points");
+                foreach (var index in warning.PointIndexes)
+                    writer.WriteNumberValue(index);
+                writer.WriteEndArray();
+                writer.WriteEndObject();
+            }
+            writer.WriteEndArray();
             writer.WriteEndObject();
             await writer.FlushAsync(httpContext.RequestAborted);
         }
@@ -112,4 +125,12 @@ internal static class TransformApi
 /// <param name="Points">Target coordinates in request order: lat/lon/h, e/n/h or x/y/z by the target CRS kind.</param>
 /// <param name="Operation">The steps, each with its parameters and accuracy, the total accuracy and the epoch used.</param>
 /// <param name="Accuracy">Sum of the steps' stated accuracies, metres.</param>
-internal sealed record TransformResponseSchema(string From, string To, IReadOnlyList<TransformPoint> Points, string Operation, double Accuracy);
+/// <param name="Warnings">Points (request indexes) outside an area of use of the source CRS, a datum operation or the target CRS; empty when none.</param>
+internal sealed record TransformResponseSchema(string From, string To, IReadOnlyList<TransformPoint> Points, string Operation, double Accuracy,
+    IReadOnlyList<TransformWarningSchema> Warnings);
+
+/// <summary>One warning of a transformation.</summary>
+/// <param name="Code">"outside-area-of-use".</param>
+/// <param name="Message">Which area, its bounds, how many points.</param>
+/// <param name="Points">Indexes of the points concerned, in request order.</param>
+internal sealed record TransformWarningSchema(string Code, string Message, IReadOnlyList<int> Points);

@@ -27,12 +27,17 @@ public sealed record AssessmentRequest(
 /// <param name="Geoid">Geoid model name when heights are orthometric, e.g. <c>egm96</c>.</param>
 /// <param name="Epoch">Coordinate epoch as a decimal year, e.g. 2026.4.</param>
 /// <param name="Points">The points.</param>
-public sealed record PointSet(string? Crs, IReadOnlyList<PointRecord?>? Points, string? Heights = null, string? Geoid = null, double? Epoch = null);
+/// <param name="OperationCode">Fixes only: the EPSG datum transformation to bring them into the marks' frame, <c>"EPSG:1776"</c>, where EPSG offers several.</param>
+/// <param name="Plate">Marks only: the tectonic plate (e.g. <c>EURA</c>) whose motion brings the marks from their epoch to the fixes' epoch.</param>
+/// <param name="PlateModel">Marks only: <c>itrf2020-pmm</c> (default) or <c>itrf2014-pmm</c>.</param>
+public sealed record PointSet(string? Crs, IReadOnlyList<PointRecord?>? Points, string? Heights = null, string? Geoid = null, double? Epoch = null,
+    string? OperationCode = null, string? Plate = null, string? PlateModel = null);
 
 /// <summary>
 /// One point; which coordinate fields it must have depends on the kind of its set's CRS
 /// (geographic <c>lat</c>/<c>lon</c> in degrees, projected <c>e</c>/<c>n</c> in the CRS unit,
-/// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit).
+/// geocentric <c>x</c>/<c>y</c>/<c>z</c> in metres; <c>h</c> in the CRS unit). A mark may carry its velocity
+/// <c>vE</c>/<c>vN</c>/<c>vU</c> (metres per year, east/north/up) to bring it to the fixes' epoch.
 /// </summary>
 public sealed record PointRecord(
     string? Id = null,
@@ -47,7 +52,10 @@ public sealed record PointRecord(
     double? H = null,
     double? SigmaH = null,
     double? SigmaV = null,
-    DateTimeOffset? Time = null);
+    DateTimeOffset? Time = null,
+    double? VE = null,
+    double? VN = null,
+    double? VU = null);
 
 /// <summary>Required accuracy, in the measure of the selected standard (for <c>nssda</c>: 95 % confidence), metres.</summary>
 /// <param name="Standard">Accuracy standard: <c>nssda</c> (FGDC-STD-007.3-1998, default), <c>asprs-2023</c>, <c>nmas-1947</c>, <c>nga-ce90</c>.</param>

@@ -10,24 +10,40 @@ namespace QaService.Core.Assessment;
 /// pipeline compares like with like: orthometric heights become h = H + N on their geoid (each side in its own
 /// frame), then the fixes go through the planned datum operation (<see cref="CoordinateOperationPlanner"/>),
 /// time-dependent steps evaluated at each fix's observation epoch (the fixes' <c>epoch</c>, else the fix's
-/// <c>time</c> as a decimal year). The marks are taken as they are, at their own epoch: no velocity model moves
-/// them, and a difference between the two sides' epochs within one dynamic frame is stated, not corrected.
+/// <c>time</c> as a decimal year). The operation is the one whose EPSG area of use covers the fixes (or the fixes'
+/// <c>operationCode</c>); fixes and marks outside an area of use are listed for the <c>area-of-use</c> check.
+/// When the marks' frame is dynamic and the two sides' epochs differ, the marks are carried to the fixes' epoch by
+/// their own velocities (vE/vN/vU) or the named plate of a plate motion model (<see cref="PlateMotionModel"/>);
+/// without either the difference is stated, not corrected.
 /// </summary>
 public static class FrameAlignment
 {
     /// <summary>Result: the points in the marks' frame (ellipsoidal heights) and the steps in words.</summary>
-    public sealed record Aligned(IReadOnlyList<FramedPoint> Marks, IReadOnlyList<FramedPoint> Fixes, string Operation);
+    public sealed record Aligned(IReadOnlyList<FramedPoint> Marks, IReadOnlyList<FramedPoint> Fixes, string Operation)
+    {
+        /// <summary>Marks or fixes outside an area of use.</summary>
+        public IReadOnlyList<SideAreaWarning> AreaWarnings { get; init; } = [];
+    }
 
-    /// <summary>Plans the alignment; null with a message when no operation joins the two frames. A <see cref="List{T}"/> of fixes is updated in place.</summary>
-    public static (Aligned? Result, string? Problem) Align(PointSetFrame marksFrame, PointSetFrame fixesFrame,
+    /// <summary>
+    /// Plans the alignment; null with a message when no operation joins the two frames (<c>ProblemIsOperationCode</c> when the
+    /// fixes' operationCode is at fault). A <see cref="List{T}"/> of fixes is updated in place.
+    /// </summary>
+    public static (Aligned? Result, string? Problem, bool ProblemIsOperationCode) Align(PointSetFrame marksFrame, PointSetFrame fixesFrame,
         IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixes)
     {
         var markGeoid = marksFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(marksFrame.Geoid) : null;
         var fixGeoid = fixesFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(fixesFrame.Geoid) : null;
-        var plan = CoordinateOperationPlanner.Plan(AsGeographic(fixesFrame.Crs), AsGeographic(marksFrame.Crs), fixGeoid);
+        var fixLatitudes = new double[fixes.Count];
+        var fixLongitudes = new double[fixes.Count];
+        for (var i = 0; i < fixes.Count; i++)
+            (fixLatitudes[i], fixLongitudes[i]) = (fixes[i].Geodetic.LatitudeDegrees, fixes[i].Geodetic.LongitudeDegrees);
+        var plan = CoordinateOperationPlanner.Plan(AsGeographic(fixesFrame.Crs), AsGeographic(marksFrame.Crs), fixGeoid, null, null,
+            AreaOfUse.Around(fixLatitudes, fixLongitudes), fixesFrame.OperationCode);
         if (plan.Operation is null)
-            return (null, plan.Problem);
+            return (null, plan.Problem, plan.ProblemIsOperationCode);
         var operation = plan.Operation;
+        var areaWarnings = AreaWarnings(operation, marksFrame, marks, fixes, fixLatitudes, fixLongitudes);
 
         var alignedMarks = markGeoid is null ? marks : marks.Select(m => ToEllipsoidal(m, markGeoid)).ToList();
 
@@ -37,10 +53,39 @@ public static class FrameAlignment
         var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };
         if (markGeoid is not null)
             text.Add($"marks: orthometric H to ellipsoidal h = H + N with the {markGeoid.Grid.Name} geoid (bilinear; EGM96 accuracy about {markGeoid.AccuracyMetres:0.#} m absolute, it cancels where both sides use it)");
-        if (marksFrame.EpochDecimalYear is { } me && fixesFrame.EpochDecimalYear is { } fe && me != fe && marksFrame.Crs.Datum.FrameReferenceEpochYear is not null
-            && marksFrame.Crs.Datum.Code == fixesFrame.Crs.Datum.Code)
-            text.Add(InvariantText.Format($"epochs {me:0.0##} (marks) and {fe:0.0##} (fixes) differ within the dynamic frame {marksFrame.Crs.Datum.Name}: no plate-motion model was applied (several cm per year in most places)"));
-        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)), null);
+        if (marksFrame.EpochDecimalYear is { } me && FixesEpoch(fixesFrame, fixes) is { } fe && me != fe && IsDynamic(marksFrame.Crs.Datum))
+        {
+            var (moved, note) = EpochPropagation.CarryMarks(alignedMarks, marksFrame, me, fe);
+            alignedMarks = moved;
+            text.Add(note);
+        }
+        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)) { AreaWarnings = areaWarnings }, null, false);
+    }
+
+    /// <summary>A frame whose coordinates change with time: a dynamic datum (EPSG frame reference epoch) or the WGS 84 ensemble.</summary>
+    private static bool IsDynamic(GeodeticDatum datum) => datum.FrameReferenceEpochYear is not null || datum.Code == GeodeticDatum.Wgs84Ensemble.Code;
+
+    /// <summary>The fixes' epoch: theirs when stated, else the mean of their times (a campaign spans days: under 0.1 mm of plate motion per day).</summary>
+    private static double? FixesEpoch(PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes)
+    {
+        if (fixesFrame.EpochDecimalYear is { } epoch)
+            return epoch;
+        var times = fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).ToList();
+        return times.Count == 0 ? null : times.Average();
+    }
+
+    private static IReadOnlyList<SideAreaWarning> AreaWarnings(CoordinateOperation operation, PointSetFrame marksFrame, IReadOnlyList<FramedPoint> marks,
+        IReadOnlyList<FramedPoint> fixes, double[] fixLatitudes, double[] fixLongitudes)
+    {
+        var result = operation.OutsideAreas(fixLatitudes, fixLongitudes)
+            .Select(w => new SideAreaWarning("fixes", w.Message, w.PointIndexes.Select(i => fixes[i].Id).ToList())).ToList();
+        if (marksFrame.Crs.AreaOfUse is { } area)
+        {
+            var outside = marks.Where(m => area.DegreesOutside(m.Geodetic.LatitudeDegrees, m.Geodetic.LongitudeDegrees) > 0).Select(m => m.Id).ToList();
+            if (outside.Count > 0)
+                result.Add(new SideAreaWarning("marks", InvariantText.Format($"{outside.Count} of {marks.Count} marks lie outside the area of use of their CRS {marksFrame.Crs.Identifier} ({area.Name})"), outside));
+        }
+        return result;
     }
 
     /// <summary>Runs the fixes through the operation as one batch; a fix without height keeps the geoid-free height it had.</summary>

@@ -1,5 +1,6 @@
 using static QaService.Core.InvariantText;
 using System.Globalization;
+using QaService.Core.Geodesy;
 using QaService.Core.Geodesy.Catalog;
 
 namespace QaService.Core.Assessment;
@@ -79,13 +80,44 @@ internal static class PointSetReading
                 continue;
             var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
             var markId = point.Mark?.Trim();
+            var velocity = columns is null && points[i] is { } record ? ReadVelocity(record, pointPointer, isMark, errors) : null;
             result.Add(new FramedPoint(i, id, markId, geodetic.Value, hasHeight,
                 point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
                 point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
-                point.Time));
+                point.Time) { VelocityMetresPerYear = velocity });
             if (markId is { Length: > 0 } && markCheck is not null && !markCheck.Known.Contains(markId))
                 unknownMarks!.Add(new(Format($"{pointer}/points/{i}/mark"), $"no mark has the id \"{markId}\""));
         }
+    }
+
+    /// <summary>Largest velocity taken as plausible, metres per year (plates move up to ~0.15 m/yr; common practice).</summary>
+    private const double MaximumVelocityMetresPerYear = 1.0;
+
+    /// <summary>A mark's vE/vN/vU (all three or none; up may be left out as 0), metres per year.</summary>
+    private static EnuVector? ReadVelocity(PointRecord record, PointPointer pointer, bool isMark, List<InputError> errors)
+    {
+        if (record.VE is null && record.VN is null && record.VU is null)
+            return null;
+        if (!isMark)
+        {
+            errors.Add(new($"{pointer}/vE", "velocities belong to marks (they carry a mark to the fixes' epoch); leave vE/vN/vU out of fixes"));
+            return null;
+        }
+        var ok = true;
+        foreach (var (value, field) in new[] { (record.VE, "vE"), (record.VN, "vN"), (record.VU ?? 0, "vU") })
+        {
+            if (value is null)
+            {
+                errors.Add(new($"{pointer}/{field}", "a velocity needs vE and vN (vU optional), metres per year"));
+                ok = false;
+            }
+            else if (!double.IsFinite(value.Value) || Math.Abs(value.Value) > MaximumVelocityMetresPerYear)
+            {
+                errors.Add(new($"{pointer}/{field}", Format($"{field} {value} is not a velocity within ±{MaximumVelocityMetresPerYear} m/yr")));
+                ok = false;
+            }
+        }
+        return ok ? new EnuVector(record.VE!.Value, record.VN!.Value, record.VU ?? 0) : null;
     }
 
     private static bool TryCopy(PointRecord? record, out PointValues point)

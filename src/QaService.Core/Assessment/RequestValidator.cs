@@ -1,6 +1,7 @@
 using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Geodesy.Transformations;
 using QaService.Core.Geodesy.Vertical;
 using QaService.Core.Standards;
 
@@ -62,13 +63,18 @@ public static class RequestValidator
         if (errors.Count > 0)
             return ValidationOutcome.Invalid(errors);
 
-        var (aligned, problem) = FrameAlignment.Align(marksFrame!, fixesFrame!, marks, fixes);
+        var (aligned, problem, problemIsOperationCode) = FrameAlignment.Align(marksFrame!, fixesFrame!, marks, fixes);
         if (aligned is null)
-            return ValidationOutcome.Invalid([new InputError("/fixes/crs", $"{problem}; send both sides in frames the service can join")]);
+            return ValidationOutcome.Invalid([problemIsOperationCode
+                ? new InputError("/fixes/operationCode", problem!)
+                : new InputError("/fixes/crs", $"{problem}; send both sides in frames the service can join")]);
 
         return ValidationOutcome.Valid(new ValidatedAssessment(
             title,
-            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation, occupations));
+            marksFrame!, fixesFrame!, aligned.Marks, aligned.Fixes, spec, radius, exclusions, aligned.Operation, occupations)
+        {
+            AreaWarnings = aligned.AreaWarnings,
+        });
     }
 
     private static PointSetFrame? ReadFrame(PointSet? set, string pointer, List<InputError> errors)
@@ -103,9 +109,45 @@ public static class RequestValidator
         if (set.Points is null || set.Points.Count == 0)
             errors.Add(new($"{pointer}/points", "at least one point is required"));
 
+        var isMarks = pointer == "/marks";
+        int? operationCode = null;
+        if (set.OperationCode is not null && isMarks)
+            errors.Add(new($"{pointer}/operationCode", "operationCode belongs to \"fixes\": it names the transformation that brings the fixes into the marks' frame"));
+        else
+            operationCode = Transform.OperationCodeText.Parse(set.OperationCode, $"{pointer}/operationCode", errors);
+        var plateMotion = ReadPlate(set, pointer, isMarks, errors);
+
         return resolution.Crs is null || heights is null
             ? null
-            : new PointSetFrame(resolution.Crs, heights.Value, set.Geoid?.Trim().ToLowerInvariant(), set.Epoch, heightsStated);
+            : new PointSetFrame(resolution.Crs, heights.Value, set.Geoid?.Trim().ToLowerInvariant(), set.Epoch, heightsStated)
+            {
+                OperationCode = operationCode,
+                PlateMotion = plateMotion,
+            };
+    }
+
+    /// <summary>Marks' <c>plate</c> and <c>plateModel</c> (see <see cref="PlateMotionModel"/>).</summary>
+    private static (PlateMotionModel, PlateRotation)? ReadPlate(PointSet set, string pointer, bool isMarks, List<InputError> errors)
+    {
+        if (set.Plate is null && set.PlateModel is null)
+            return null;
+        if (!isMarks)
+        {
+            errors.Add(new($"{pointer}/{(set.Plate is null ? "plateModel" : "plate")}", "plate and plateModel belong to \"marks\": the marks are carried to the fixes' epoch"));
+            return null;
+        }
+        var model = set.PlateModel is null ? PlateMotionModel.Default : PlateMotionModel.Find(set.PlateModel);
+        if (model is null)
+        {
+            errors.Add(new($"{pointer}/plateModel", $"plateModel \"{set.PlateModel}\" is not known; known: {string.Join(", ", PlateMotionModel.All.Select(m => m.Id))}"));
+            return null;
+        }
+        if (model.Plate(set.Plate) is not { } plate)
+        {
+            errors.Add(new($"{pointer}/plate", $"plate \"{set.Plate}\" is not in {model.Id}; its plates: {string.Join(", ", model.Plates.Order(StringComparer.Ordinal))}"));
+            return null;
+        }
+        return (model, plate);
     }
 
     private static void CheckHeightsCompatible(PointSetFrame marks, PointSetFrame fixes, List<InputError> errors)

@@ -16,7 +16,14 @@ public enum HeightReference
 
 /// <summary>The frame a point set was given in, after validation.</summary>
 /// <param name="HeightsStated">False when the request left <c>heights</c> out and the default was taken.</param>
-public sealed record PointSetFrame(CoordinateReferenceSystem Crs, HeightReference Heights, string? Geoid, double? EpochDecimalYear, bool HeightsStated);
+public sealed record PointSetFrame(CoordinateReferenceSystem Crs, HeightReference Heights, string? Geoid, double? EpochDecimalYear, bool HeightsStated)
+{
+    /// <summary>Fixes: the EPSG datum transformation the caller chose; null to let the planner choose.</summary>
+    public int? OperationCode { get; init; }
+
+    /// <summary>Marks: the plate motion model and plate that carry them to the fixes' epoch; null when none was named.</summary>
+    public (Geodesy.Transformations.PlateMotionModel Model, Geodesy.Transformations.PlateRotation Plate)? PlateMotion { get; init; }
+}
 
 /// <summary>
 /// A point brought into the common geodetic frame. <see cref="Geodetic"/> holds the ellipsoidal
@@ -41,16 +48,19 @@ public sealed record FramedPoint(
     // about 72 bytes instead of 128 (a 1,000,000-fix upload holds every fix through the assessment).
     private Extras? extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time);
 
-    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time); }
+    public double? SigmaHorizontalMetres { get => extras?.SigmaHorizontalMetres; init => extras = Extras.Of(value, SigmaVerticalMetres, Time, VelocityMetresPerYear); }
 
-    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time); }
+    public double? SigmaVerticalMetres { get => extras?.SigmaVerticalMetres; init => extras = Extras.Of(SigmaHorizontalMetres, value, Time, VelocityMetresPerYear); }
 
-    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value); }
+    public DateTimeOffset? Time { get => extras?.Time; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, value, VelocityMetresPerYear); }
 
-    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time)
+    /// <summary>A mark's own velocity (east, north, up; metres per year) when the request gives one.</summary>
+    public EnuVector? VelocityMetresPerYear { get => extras?.Velocity; init => extras = Extras.Of(SigmaHorizontalMetres, SigmaVerticalMetres, Time, value); }
+
+    private sealed record Extras(double? SigmaHorizontalMetres, double? SigmaVerticalMetres, DateTimeOffset? Time, EnuVector? Velocity = null)
     {
-        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time) =>
-            sigmaHorizontal is null && sigmaVertical is null && time is null ? null : new(sigmaHorizontal, sigmaVertical, time);
+        public static Extras? Of(double? sigmaHorizontal, double? sigmaVertical, DateTimeOffset? time, EnuVector? velocity = null) =>
+            sigmaHorizontal is null && sigmaVertical is null && time is null && velocity is null ? null : new(sigmaHorizontal, sigmaVertical, time, velocity);
     }
 }
 
@@ -76,7 +86,13 @@ public sealed record ValidatedAssessment(
     string? FrameOperation = null,
     OccupationMode Occupations = OccupationMode.Each)
 {
+    /// <summary>Marks or fixes outside an area of use (CRS or datum operation), for the <c>area-of-use</c> check.</summary>
+    public IReadOnlyList<SideAreaWarning> AreaWarnings { get; init; } = [];
+
     /// <summary>True when both sides carry heights that can be compared.</summary>
     public bool HasVerticalComparison =>
         MarksFrame.Heights != HeightReference.None && FixesFrame.Heights != HeightReference.None;
 }
+
+/// <summary>An area-of-use warning for one side of the assessment; <see cref="Ids"/> are the point ids concerned.</summary>
+public sealed record SideAreaWarning(string Side, string Message, IReadOnlyList<string> Ids);

@@ -56,5 +56,6 @@ public static class DataChecks
         new OutlierCheck(),
         new HeightReferenceCheck(),
         new ReferenceAccuracyCheck(),
+        new AreaOfUseCheck(),
     ];
 }

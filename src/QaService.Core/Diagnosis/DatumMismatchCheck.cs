@@ -105,7 +105,9 @@ public static class FrameShifts
         var marksGeographic = Geographic(marksCrs);
         var fixesGeographic = Geographic(fixesCrs);
         var atFixes = Transform(marksGeographic, fixesGeographic, centroid, epoch) ?? centroid;
-        foreach (var other in GeographicByDatum.Value)
+        // Only frames used where the marks are: a national datum of another continent is no plausible mislabelling, and
+        // planning against all ~400 catalog datums would cost more than the rest of the assessment.
+        foreach (var other in GeographicByDatum.Value.Where(c => c.AreaOfUse is null || c.AreaOfUse.DegreesOutside(centroid.LatitudeDegrees, centroid.LongitudeDegrees) == 0))
         {
             if (other.Datum.Code != fixesCrs.Datum.Code && Transform(fixesGeographic, other, atFixes, epoch) is { } inOther)
             {

@@ -10,13 +10,15 @@ namespace QaService.Core.Transform;
 /// <param name="FromGeoid">When given, the source heights are orthometric on this geoid (e.g. "egm96"); otherwise ellipsoidal.</param>
 /// <param name="ToGeoid">When given, the output heights are orthometric on this geoid; otherwise ellipsoidal.</param>
 /// <param name="Points">The points; fields by the source CRS kind.</param>
+/// <param name="OperationCode">An EPSG datum transformation to use, <c>"EPSG:15948"</c> (or the bare code), where EPSG offers several; the route goes through it.</param>
 public sealed record TransformRequest(
     string? From,
     string? To,
     IReadOnlyList<TransformPoint?>? Points,
     double? Epoch = null,
     string? FromGeoid = null,
-    string? ToGeoid = null);
+    string? ToGeoid = null,
+    string? OperationCode = null);
 
 /// <summary>One point: geographic <c>lat</c>/<c>lon</c> (degrees), projected <c>e</c>/<c>n</c> (CRS unit) or geocentric <c>x</c>/<c>y</c>/<c>z</c> (metres); optional <c>h</c>.</summary>
 public sealed record TransformPoint(

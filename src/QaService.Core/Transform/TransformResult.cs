@@ -14,7 +14,11 @@ public sealed record TransformResult(
     CoordinateBuffer Points,
     bool[] HasHeight,
     string Operation,
-    double AccuracyMetres);
+    double AccuracyMetres)
+{
+    /// <summary>Points outside an area of use of the source CRS, a datum step or the target CRS (request indexes).</summary>
+    public IReadOnlyList<AreaWarning> Warnings { get; init; } = [];
+}
 
 /// <summary>Either a result or the input errors (JSON pointers) that stop it.</summary>
 public sealed record TransformOutcome(TransformResult? Result, IReadOnlyList<InputError> Errors);

@@ -33,13 +33,7 @@ public static class TransformRunner
         if (source is null || target is null || request.Points is null || request.Points.Count == 0)
             return new TransformOutcome(null, errors);
 
-        var plan = CoordinateOperationPlanner.Plan(source, target, sourceGeoid, targetGeoid);
-        if (plan.Operation is null)
-        {
-            errors.Add(new("/to", plan.Problem!));
-            return new TransformOutcome(null, errors);
-        }
-
+        var operationCode = OperationCodeText.Parse(request.OperationCode, "/operationCode", errors);
         var points = request.Points;
         var buffer = new CoordinateBuffer(points.Count, withEpochs: request.Epoch is not null);
         var hasHeight = new bool[points.Count];
@@ -49,6 +43,15 @@ public static class TransformRunner
             return new TransformOutcome(null, errors);
         if (buffer.EpochYears is { } epochs)
             Array.Fill(epochs, request.Epoch!.Value);
+
+        var (latitudes, longitudes) = SourceGeographic(source, buffer);
+        var plan = CoordinateOperationPlanner.Plan(source, target, sourceGeoid, targetGeoid, null,
+            AreaOfUse.Around(latitudes, longitudes), operationCode);
+        if (plan.Operation is null)
+        {
+            errors.Add(new(plan.ProblemIsOperationCode ? "/operationCode" : "/to", plan.Problem!));
+            return new TransformOutcome(null, errors);
+        }
 
         var operation = plan.Operation;
         operation.Execute(buffer);
@@ -61,7 +64,24 @@ public static class TransformRunner
             return new TransformOutcome(null, errors);
 
         var epochNote = request.Epoch is { } t ? InvariantText.Format($"{t} (request epoch)") : null;
-        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyMetres), []);
+        return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyMetres)
+        {
+            Warnings = operation.OutsideAreas(latitudes, longitudes),
+        }, []);
+    }
+
+    /// <summary>Latitude/longitude of the points in the source datum (a copy through the conversion steps only), for areas of use.</summary>
+    private static (double[] Latitudes, double[] Longitudes) SourceGeographic(CoordinateReferenceSystem source, CoordinateBuffer points)
+    {
+        if (source.Kind == CrsKind.Geographic)
+            return (points.First, points.Second);
+        var geographic = source with { Kind = CrsKind.Geographic, Projection = null, Unit = LinearUnit.Metre, HasHeightAxis = true };
+        var copy = new CoordinateBuffer(points.Count);
+        points.First.CopyTo(copy.First, 0);
+        points.Second.CopyTo(copy.Second, 0);
+        points.Third.CopyTo(copy.Third, 0);
+        CoordinateOperationPlanner.Plan(source, geographic).Operation!.Execute(copy);
+        return (copy.First, copy.Second);
     }
 
     private static CoordinateReferenceSystem? ResolveCrs(string? text, string pointer, List<InputError> errors)

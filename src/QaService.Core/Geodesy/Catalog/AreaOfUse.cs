@@ -31,4 +31,41 @@ public sealed record AreaOfUse(string Name, double SouthDegrees, double NorthDeg
         double cosLat = Math.Cos(Math.Clamp(latitudeDegrees, -AngleMath.QuarterTurnDegrees, AngleMath.QuarterTurnDegrees) * AngleMath.RadiansPerDegree);
         return Math.Max(dLat, dLon * cosLat);
     }
+
+    /// <summary>The smallest box holding every point (longitudes as given; a set across the antimeridian gets the wide box).</summary>
+    public static AreaOfUse? Around(ReadOnlySpan<double> latitudesDegrees, ReadOnlySpan<double> longitudesDegrees, string name = "the points")
+    {
+        double s = double.PositiveInfinity, n = double.NegativeInfinity, w = double.PositiveInfinity, e = double.NegativeInfinity;
+        for (var i = 0; i < latitudesDegrees.Length; i++)
+        {
+            if (!double.IsFinite(latitudesDegrees[i]) || !double.IsFinite(longitudesDegrees[i]))
+                continue;
+            s = Math.Min(s, latitudesDegrees[i]);
+            n = Math.Max(n, latitudesDegrees[i]);
+            w = Math.Min(w, longitudesDegrees[i]);
+            e = Math.Max(e, longitudesDegrees[i]);
+        }
+        return double.IsFinite(s) ? new AreaOfUse(name, s, n, w, e) : null;
+    }
+
+    /// <summary>True when <paramref name="box"/> lies wholly inside this area (antimeridian-crossing areas handled).</summary>
+    public bool Contains(AreaOfUse box) =>
+        box.SouthDegrees >= SouthDegrees && box.NorthDegrees <= NorthDegrees &&
+        Shifts(box).Any(b => b.West >= Span.West && b.East <= Span.East);
+
+    /// <summary>True when <paramref name="box"/> and this area overlap.</summary>
+    public bool Intersects(AreaOfUse box) =>
+        box.SouthDegrees <= NorthDegrees && box.NorthDegrees >= SouthDegrees &&
+        Shifts(box).Any(b => b.West <= Span.East && b.East >= Span.West);
+
+    /// <summary>West/east as an increasing interval (east + 360 when the area crosses the antimeridian).</summary>
+    private (double West, double East) Span => EastDegrees >= WestDegrees ? (WestDegrees, EastDegrees) : (WestDegrees, EastDegrees + AngleMath.FullTurnDegrees);
+
+    private static IEnumerable<(double West, double East)> Shifts(AreaOfUse box)
+    {
+        var (w, e) = box.Span;
+        yield return (w, e);
+        yield return (w + AngleMath.FullTurnDegrees, e + AngleMath.FullTurnDegrees);
+        yield return (w - AngleMath.FullTurnDegrees, e - AngleMath.FullTurnDegrees);
+    }
 }

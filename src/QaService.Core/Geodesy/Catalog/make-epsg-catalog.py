@@ -4,8 +4,8 @@ Parameter Dataset as shipped in Debian's PROJ database (package proj-data, /usr/
 
 Usage:  /usr/bin/python3 make-epsg-catalog.py [/usr/share/proj/proj.db] > epsg-catalog.tsv
 
-Selection: every non-deprecated EPSG geodetic CRS (geographic 2D/3D, geocentric) on the datums in
-DATUMS, and every non-deprecated EPSG projected CRS based on one of them whose conversion method
+Selection: every non-deprecated EPSG geodetic CRS (geographic 2D/3D, geocentric) on the datums
+datum_scope.datums() selects, and every non-deprecated EPSG projected CRS based on one of them whose conversion method
 is in METHODS (the methods QaService.Core implements). Angles are written in decimal degrees
 (sexagesimal DMS and grads converted), lengths in metres (US survey foot exactly 1200/3937 m),
 scale factors unitless; floats as Python repr (shortest round-trip text).
@@ -20,20 +20,15 @@ Record types (tab-separated, first column):
   C  code, kind (geog2d|geog3d|geocen|proj), name, datum code, base CRS code, method code,
      parameters (code=value;…), unit code, axes (abbrev:orientation;…), extent code
 """
+import os
 import sqlite3
 import sys
 from fractions import Fraction
 
-# EPSG datum codes in scope (issue: WGS 84, ITRF2008/2014/2020, ETRS89/ETRF2000, NAD83, NAD83(2011),
-# NAD83(CSRS), GDA94/GDA2020) plus their cheap neighbours (WGS 84 realisations, other ITRF/ETRF).
-DATUMS = [
-    6326, 1166, 1152, 1153, 1154, 1155, 1156, 1309,          # WGS 84 ensemble and realisations
-    6656, 6896, 1061, 1165, 1322,                            # ITRF2000, 2005, 2008, 2014, 2020
-    6258, 1178, 1179, 1180, 1181, 1182, 1183, 1184, 1185,    # ETRS89 ensemble, ETRF89..ETRF97
-    1186, 1204, 1206,                                        # ETRF2000, ETRF2005, ETRF2014
-    6269, 1116, 6140,                                        # NAD83, NAD83(2011), NAD83(CSRS)
-    6283, 1168,                                              # GDA94, GDA2020
-]
+# Datums in scope: the hubs (WGS 84, ITRF, ETRS89/ETRF, NAD83, GDA) and every datum proj.db links to one of them
+# by a Helmert the service implements or an NTv2 grid in the PROJ data folder; see tools/geodesy/datum_scope.py.
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "..", "..", "tools", "geodesy"))
+import datum_scope  # noqa: E402
 
 # Conversion methods implemented in src/QaService.Core/Geodesy/Projections (and TransverseMercator.cs).
 METHODS = [9807, 9801, 9802, 9804, 9805, 1024, 9809, 9810, 9829, 9820, 9822, 9812, 9815]
@@ -106,13 +101,16 @@ def main():
                 "and u.object_code=? order by cast(u.code as integer) limit 1", (table, code)).fetchone()
         return int(row[0])
 
-    out = []
+    DATUMS = datum_scope.datums(q)
     datum_rows = {}
     for code in DATUMS:
-        name, ell, a, rf, b, epoch, acc, dep = q(
-            "select d.name, e.name, e.semi_major_axis, e.inv_flattening, e.semi_minor_axis, d.frame_reference_epoch, "
+        name, ell, a, rf, b, uom, epoch, acc, dep = q(
+            "select d.name, e.name, e.semi_major_axis, e.inv_flattening, e.semi_minor_axis, e.uom_code, d.frame_reference_epoch, "
             "d.ensemble_accuracy, d.deprecated from geodetic_datum d join ellipsoid e on e.auth_name=d.ellipsoid_auth_name "
             "and e.code=d.ellipsoid_code where d.auth_name='EPSG' and d.code=?", (code,)).fetchone()
+        # Axes in metres (e.g. Clarke 1858 is given in Clarke's feet); 1/f from b where EPSG defines the ellipsoid by a and b.
+        a, b = length_to_metres(a, int(uom)), (None if b is None else length_to_metres(b, int(uom)))
+        rf = rf if rf else a / (a - b)
         assert not dep and rf, code
         datum_rows[code] = f"D\t{code}\t{name}\t{ell}\t{a!r}\t{rf!r}\t{'' if epoch is None else repr(epoch)}\t{'' if acc is None else repr(acc)}"
 

@@ -4,7 +4,8 @@ using QaService.Core.Geodesy.Vertical;
 namespace QaService.Core.Geodesy.Transformations;
 
 /// <summary>The planned operation, or why there is none.</summary>
-public sealed record OperationPlan(CoordinateOperation? Operation, string? Problem);
+/// <param name="ProblemIsOperationCode">True when the problem is the caller's <c>operationCode</c> (unknown, not joining the CRSs, or its grid missing).</param>
+public sealed record OperationPlan(CoordinateOperation? Operation, string? Problem, bool ProblemIsOperationCode = false);
 
 /// <summary>
 /// Finds the operation between two CRSs of the catalog, in the order PROJ builds its pipelines
@@ -18,10 +19,17 @@ public static class CoordinateOperationPlanner
     /// <param name="sourceGeoid">When the source heights are orthometric: the geoid they refer to.</param>
     /// <param name="targetGeoid">When the target heights are to be orthometric: the geoid.</param>
     /// <param name="graph">Datum transformations to search; <see cref="DatumGraph.Default"/> when null.</param>
+    /// <param name="pointsBox">The points' latitude/longitude box in the source datum, to prefer operations whose area covers it.</param>
+    /// <param name="operationCode">An EPSG transformation code the caller chose; the path goes through it.</param>
     public static OperationPlan Plan(CoordinateReferenceSystem source, CoordinateReferenceSystem target,
-        GeoidModel? sourceGeoid = null, GeoidModel? targetGeoid = null, DatumGraph? graph = null)
+        GeoidModel? sourceGeoid = null, GeoidModel? targetGeoid = null, DatumGraph? graph = null,
+        AreaOfUse? pointsBox = null, int? operationCode = null)
     {
-        var path = (graph ?? DatumGraph.Default).FindPath(source.Datum.Code, target.Datum.Code);
+        graph ??= DatumGraph.Default;
+        var route = graph.Route(source.Datum.Code, target.Datum.Code, pointsBox, operationCode);
+        if (route.Problem is not null)
+            return new OperationPlan(null, route.Problem, route.ProblemIsOperationCode);
+        var path = route.Path;
         if (path is null)
             return new OperationPlan(null, $"no transformation is known between {source.Datum.Name} ({source.Datum.Code}) and {target.Datum.Name} ({target.Datum.Code})");
 
@@ -59,7 +67,11 @@ public static class CoordinateOperationPlanner
                 builder.EnsureGeographic(target.Ellipsoid);
                 break;
         }
-        return new OperationPlan(new CoordinateOperation(source, target, builder.Steps), null);
+        return new OperationPlan(new CoordinateOperation(source, target, builder.Steps)
+        {
+            DatumEdges = path,
+            Alternatives = path.Where(e => e.OperationCode != 0).ToDictionary(e => e, graph.Alternatives),
+        }, null);
     }
 
     /// <summary>Tracks what the arrays hold after each step.</summary>

@@ -1,3 +1,5 @@
+using QaService.Core.Geodesy.Catalog;
+
 namespace QaService.Core.Geodesy.Transformations;
 
 /// <summary>
@@ -11,5 +13,7 @@ namespace QaService.Core.Geodesy.Transformations;
 /// <param name="TargetDatum">EPSG datum code of the target frame.</param>
 /// <param name="AccuracyMetres">Accuracy EPSG states for the transformation, metres.</param>
 /// <param name="Parameters">The Helmert parameters.</param>
+/// <param name="Area">EPSG area of use of the transformation; null when none is stated (the service's own entries).</param>
 public sealed record DatumTransformationDefinition(
-    int EpsgCode, string Name, int MethodCode, string SourceDatum, string TargetDatum, double AccuracyMetres, HelmertParameters Parameters);
+    int EpsgCode, string Name, int MethodCode, string SourceDatum, string TargetDatum, double AccuracyMetres, HelmertParameters Parameters,
+    AreaOfUse? Area = null);

@@ -18,7 +18,7 @@ public sealed class HelmertStep(DatumTransformationDefinition definition, bool r
     public double AccuracyMetres => definition.AccuracyMetres;
 
     public string Description => string.Create(CultureInfo.InvariantCulture,
-        $"{(reversed ? "inverse of " : "")}EPSG:{definition.EpsgCode} \"{definition.Name}\" ({(definition.Parameters.IsTimeDependent ? "time-dependent 14-parameter" : "7-parameter")} Helmert, EPSG method {definition.MethodCode}: {definition.Parameters.Describe()}); accuracy {definition.AccuracyMetres:0.###} m (EPSG)");
+        $"{(reversed ? "inverse of " : "")}EPSG:{definition.EpsgCode} \"{definition.Name}\" ({(definition.Parameters.IsTimeDependent ? "time-dependent 14-parameter" : "7-parameter")} Helmert, EPSG method {definition.MethodCode}: {definition.Parameters.Describe()}); accuracy {definition.AccuracyMetres:0.###} m (EPSG){(definition.Area is { } area ? "; area: " + area.Name : "")}");
 
     public void Apply(CoordinateBuffer points)
     {
