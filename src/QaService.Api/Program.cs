@@ -9,6 +9,8 @@ using QaService.Api.Sharing;
 using QaService.Api.Transform;
 using QaService.Api.Screening;
 using QaService.Api.Upload;
+using QaService.Api.Projects;
+using QaService.Api.SignOff;
 
 StartupErrors.ExitOnConfigurationError();
 
@@ -32,6 +34,8 @@ app.MapScreening();
 app.MapShareLinks();
 app.MapSharedReports();
 app.MapGuidedUpload();
+app.MapProjects();
+app.MapDecisions();
 
 await app.RunAsync();
 

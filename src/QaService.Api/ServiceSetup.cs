@@ -9,6 +9,7 @@ using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
 using QaService.Api.Security;
+using QaService.Api.SignOff;
 using QaService.Api.Storage;
 using OpenTelemetry.Metrics;
 using Serilog;
@@ -57,6 +58,7 @@ internal static class ServiceSetup
         builder.Services.AddSingleton(typeof(JsonBodyReader<>));
         builder.Services.AddSingleton<QaMetrics>();
         builder.Services.AddSingleton<MultipartUploadReader>();
+        builder.Services.AddSignOff();
         builder.Services.AddHostedService<StartupTasks>();
         builder.Services.AddHostedService<RetentionPurge>();
         builder.Services.AddHostedService<ExposureWarning>();

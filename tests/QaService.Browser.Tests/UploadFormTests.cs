@@ -106,7 +106,7 @@ public sealed class UploadFormTests(LiveService service, ITestOutputHelper outpu
     /// The demo's marks (UTM 33N) and fixes (WGS 84) as CSV files with the contract's column names; a fix without a
     /// mark keeps an empty mark cell and is paired by proximity, as in the demo's JSON request (radius 1 m).
     /// </summary>
-    private static (string Marks, string Fixes) DemoAsCsv()
+    internal static (string Marks, string Fixes) DemoAsCsv()
     {
         var request = JsonNode.Parse(File.ReadAllText(HostileInputTests.DemoRequestPath()))!;
         var marks = new StringBuilder("id,e,n,h\n");

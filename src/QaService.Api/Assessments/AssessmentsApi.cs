@@ -5,6 +5,7 @@ using QaService.Api.Limits;
 using QaService.Api.Observability;
 using QaService.Api.OpenApi;
 using QaService.Api.Problems;
+using QaService.Api.Projects;
 using QaService.Api.Security;
 using QaService.Api.Storage;
 using QaService.Core.Assessment;
@@ -51,6 +52,7 @@ internal static class AssessmentsApi
         JsonBodyReader<AssessmentRequest> reader,
         MultipartUploadReader uploads,
         IReportStore store,
+        IProjectStore projects,
         ITenantContext tenant,
         IOptions<LimitsOptions> limits,
         QaMetrics metrics,
@@ -60,11 +62,11 @@ internal static class AssessmentsApi
     {
         // Large uploads: the input is held only inside AssessAsync, so it is garbage once the report exists, and the
         // report is dropped once serialised: the points, the residuals and the JSON are never all held at once.
-        var (report, problem) = await AssessAsync(request, reader, uploads, limits.Value, clock, cancellationToken);
+        var (report, projectId, problem) = await AssessAsync(request, reader, uploads, new ProjectScope(projects, tenant.TenantId), limits.Value, clock, cancellationToken);
         if (problem is not null)
             return problem;
         await LargeRequestMemory.ReleaseAsync(report!.Counts.Fixes);
-        var header = new ReportHeader(tenant.TenantId, report.Id, report.CreatedAt, report.Title, VerdictText(report));
+        var header = new ReportHeader(tenant.TenantId, report.Id, report.CreatedAt, report.Title, VerdictText(report), projectId);
         var (paired, points) = (report.Counts.Paired, report.Counts.Marks + report.Counts.Fixes);
         var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
         report = null;
@@ -84,44 +86,50 @@ internal static class AssessmentsApi
     }
 
     /// <summary>Validates the request and runs the assessment; the validated input is garbage once this returns.</summary>
-    private static async Task<(AssessmentReport? Report, IResult? Problem)> AssessAsync(HttpRequest request, JsonBodyReader<AssessmentRequest> reader,
-        MultipartUploadReader uploads, LimitsOptions limits, TimeProvider clock, CancellationToken cancellationToken)
+    private static async Task<(AssessmentReport? Report, string? ProjectId, IResult? Problem)> AssessAsync(HttpRequest request, JsonBodyReader<AssessmentRequest> reader,
+        MultipartUploadReader uploads, ProjectScope projects, LimitsOptions limits, TimeProvider clock, CancellationToken cancellationToken)
     {
-        var (outcome, ingest, problem) = MultipartUploadReader.IsMultipart(request)
-            ? await ValidateUploadAsync(request, uploads, limits, cancellationToken)
-            : await ValidateJsonAsync(request, reader, limits, cancellationToken);
+        var (outcome, ingest, projectId, problem) = MultipartUploadReader.IsMultipart(request)
+            ? await ValidateUploadAsync(request, uploads, projects, limits, cancellationToken)
+            : await ValidateJsonAsync(request, reader, projects, limits, cancellationToken);
         if (problem is not null)
-            return (null, problem);
+            return (null, null, problem);
         if (outcome!.Assessment is null)
-            return (null, InputProblems.Invalid(outcome.Errors));
+            return (null, null, InputProblems.Invalid(outcome.Errors));
         await LargeRequestMemory.ReleaseAsync(outcome.Assessment.Fixes.Count);
-        return (AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest }, null);
+        return (AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest }, projectId, null);
     }
 
     /// <summary>Reads and validates a multipart upload; the parsed files are garbage once this returns.</summary>
-    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, IResult? Problem)> ValidateUploadAsync(
-        HttpRequest request, MultipartUploadReader uploads, LimitsOptions limits, CancellationToken cancellationToken)
+    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, string? ProjectId, IResult? Problem)> ValidateUploadAsync(
+        HttpRequest request, MultipartUploadReader uploads, ProjectScope projects, LimitsOptions limits, CancellationToken cancellationToken)
     {
         var (options, marks, fixes, uploadProblem) = await uploads.ReadAsync(request, cancellationToken);
         if (uploadProblem is not null)
-            return (null, null, uploadProblem);
+            return (null, null, null, uploadProblem);
         if (PointCap.Check(limits, ("/marks", marks!.Points.Count), ("/fixes", fixes!.Points.Count)) is { } tooManyRead)
-            return (null, null, tooManyRead);
-        var (outcome, ingest) = UploadValidation.Validate(options!, marks, fixes);
-        return (outcome, ingest, null);
+            return (null, null, null, tooManyRead);
+        var (spec, projectId, projectError) = await projects.ResolveAsync(options!.ProjectId, options.Spec, "/options/projectId", cancellationToken);
+        if (projectError is not null)
+            return (null, null, null, InputProblems.Invalid([projectError]));
+        var (outcome, ingest) = UploadValidation.Validate(options with { Spec = spec }, marks, fixes);
+        return (outcome, ingest, projectId, null);
     }
 
     /// <summary>Reads and validates a JSON request.</summary>
-    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, IResult? Problem)> ValidateJsonAsync(
-        HttpRequest request, JsonBodyReader<AssessmentRequest> reader, LimitsOptions limits, CancellationToken cancellationToken)
+    private static async Task<(ValidationOutcome? Outcome, IngestSummary? Ingest, string? ProjectId, IResult? Problem)> ValidateJsonAsync(
+        HttpRequest request, JsonBodyReader<AssessmentRequest> reader, ProjectScope projects, LimitsOptions limits, CancellationToken cancellationToken)
     {
         var (body, problem) = await reader.ReadAsync(request, cancellationToken);
         if (problem is not null)
-            return (null, null, problem);
+            return (null, null, null, problem);
         var pointCount = (Marks: body!.Marks?.Points?.Count ?? 0, Fixes: body.Fixes?.Points?.Count ?? 0);
         if (PointCap.Check(limits, ("/marks/points", pointCount.Marks), ("/fixes/points", pointCount.Fixes)) is { } tooMany)
-            return (null, null, tooMany);
-        return (RequestValidator.Validate(body), null, null);
+            return (null, null, null, tooMany);
+        var (spec, projectId, projectError) = await projects.ResolveAsync(body.ProjectId, body.Spec, "/projectId", cancellationToken);
+        if (projectError is not null)
+            return (null, null, null, InputProblems.Invalid([projectError]));
+        return (RequestValidator.Validate(body with { Spec = spec }), null, projectId, null);
     }
 
     /// <summary>

@@ -14,6 +14,8 @@ internal static class TagDescriptions
         ["CRS"] = "The catalog of supported coordinate reference systems: search and definitions.",
         ["Screening"] = "Accept, flag or reject single fixes from their receiver metadata under named profiles.",
         ["Share links"] = "Links that open one report's HTML page, CSV and GeoJSON without credentials until they expire or are revoked.",
+        ["Projects"] = "A contract's spec that its deliveries (assessments naming the project) inherit; the deliveries' acceptance and the trend of their figures.",
+        ["Sign-off"] = "Append-only accept/reject decisions on a delivery, each bound to the SHA-256 of the report bytes it was taken on.",
         ["Admin"] = "Tenant administration with the admin token (Auth:AdminToken).",
     };
 }

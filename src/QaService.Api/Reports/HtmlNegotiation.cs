@@ -16,7 +16,7 @@ internal sealed class HtmlNegotiation : IEndpointFilter
         if (!PrefersHtml(http.Request.Headers.Accept) || http.Request.RouteValues["id"] is not string id)
             return await next(context);
         var services = http.RequestServices;
-        return await ReportsApi.HtmlAsync(id, services.GetRequiredService<IReportStore>(), services.GetRequiredService<ITenantContext>(), http.RequestAborted);
+        return await ReportsApi.HtmlAsync(id, http, services.GetRequiredService<IReportStore>(), services.GetRequiredService<ITenantContext>(), http.RequestAborted);
     }
 
     /// <summary>True when text/html is listed with a higher quality than application/json (RFC 9110 §12.5.1).</summary>

@@ -1,5 +1,6 @@
 using QaService.Api.Problems;
 using QaService.Api.Security;
+using QaService.Api.SignOff;
 using QaService.Api.Storage;
 using QaService.Core.Reporting;
 using QaService.Core.Reporting.Exports;
@@ -35,8 +36,15 @@ internal static class ReportsApi
         return group;
     }
 
-    internal static Task<IResult> HtmlAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken) =>
-        WithReportAsync(id, store, tenant, cancellationToken, report => new HtmlPage(ReportPage.Render(report)));
+    /// <summary>The page, with the decisions and the hash of the stored bytes beside the report (never inside its JSON).</summary>
+    internal static async Task<IResult> HtmlAsync(string id, HttpContext context, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken)
+    {
+        var (report, sha256) = await StoredReports.LoadHashedAsync(store, tenant.TenantId, id, cancellationToken);
+        if (report is null)
+            return NotFound(id);
+        var signOff = await SignOffPanels.ForAsync(context, tenant.TenantId, report.Id, sha256!, cancellationToken);
+        return new HtmlPage(ReportPage.Render(report, signOff));
+    }
 
     internal static Task<IResult> CsvAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken) =>
         WithReportAsync(id, store, tenant, cancellationToken, report => new DownloadResult(ResidualCsv.Write(report), ResidualCsv.MediaType, $"assessment-{report.Id}-residuals.csv"));
@@ -47,8 +55,9 @@ internal static class ReportsApi
     private static async Task<IResult> WithReportAsync(string id, IReportStore store, ITenantContext tenant, CancellationToken cancellationToken, Func<AssessmentReport, IResult> view)
     {
         var report = await StoredReports.LoadAsync(store, tenant.TenantId, id, cancellationToken);
-        return report is null
-            ? InputProblems.Status(StatusCodes.Status404NotFound, "Assessment not found", $"there is no assessment with id \"{(id.Length <= 64 ? id : id[..64] + "…")}\"")
-            : view(report);
+        return report is null ? NotFound(id) : view(report);
     }
+
+    private static IResult NotFound(string id) =>
+        InputProblems.Status(StatusCodes.Status404NotFound, "Assessment not found", $"there is no assessment with id \"{(id.Length <= 64 ? id : id[..64] + "…")}\"");
 }

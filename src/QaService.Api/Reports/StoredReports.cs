@@ -21,4 +21,17 @@ internal static class StoredReports
         await using var json = await store.OpenJsonAsync(tenant, id, cancellationToken);
         return json is null ? null : await JsonSerializer.DeserializeAsync<AssessmentReport>(json, Options, cancellationToken);
     }
+
+    /// <summary>The report and the SHA-256 of its stored bytes, from one read of the stream.</summary>
+    public static async Task<(AssessmentReport? Report, string? Sha256)> LoadHashedAsync(IReportStore store, string tenant, string id, CancellationToken cancellationToken)
+    {
+        if (!ReportIds.IsPlausible(id))
+            return (null, null);
+        var json = await store.OpenJsonAsync(tenant, id, cancellationToken);
+        if (json is null)
+            return (null, null);
+        await using var hashing = new SignOff.Sha256ReadStream(json);
+        var report = await JsonSerializer.DeserializeAsync<AssessmentReport>(hashing, Options, cancellationToken);
+        return (report, await hashing.FinishAsync(cancellationToken));
+    }
 }

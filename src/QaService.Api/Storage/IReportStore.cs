@@ -23,7 +23,7 @@ public interface IReportStore
     {
         using var reader = new StreamReader(json, Encoding.UTF8, detectEncodingFromByteOrderMarks: false, leaveOpen: true);
         var text = await reader.ReadToEndAsync(cancellationToken);
-        await SaveAsync(new StoredReport(header.Tenant, header.Id, header.CreatedAt, header.Title, header.Verdict, text), cancellationToken);
+        await SaveAsync(new StoredReport(header.Tenant, header.Id, header.CreatedAt, header.Title, header.Verdict, text, header.ProjectId), cancellationToken);
     }
 
     /// <summary>The report's JSON, or null when the tenant has no report with that id.</summary>
@@ -69,11 +69,11 @@ public interface IReportStore
     Task<bool> IsReachableAsync(CancellationToken cancellationToken);
 }
 
-/// <summary>One report row.</summary>
-public sealed record StoredReport(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string Json);
+/// <summary>One report row; <paramref name="ProjectId"/> names the project the report is a delivery of (null: none).</summary>
+public sealed record StoredReport(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string Json, string? ProjectId = null);
 
 /// <summary>One report row without its JSON (which travels as a stream).</summary>
-public sealed record ReportHeader(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);
+public sealed record ReportHeader(string Tenant, string Id, DateTimeOffset CreatedAt, string? Title, string Verdict, string? ProjectId = null);
 
 /// <summary>One line of a report list.</summary>
 public sealed record ReportSummary(string Id, DateTimeOffset CreatedAt, string? Title, string Verdict);

@@ -15,7 +15,7 @@ internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReport
     public Task InitializeAsync(CancellationToken cancellationToken) => PostgresSchema.MigrateAsync(dataSource, cancellationToken);
 
     public Task SaveAsync(StoredReport report, CancellationToken cancellationToken) =>
-        InsertAsync(new ReportHeader(report.Tenant, report.Id, report.CreatedAt, report.Title, report.Verdict), report.Json, cancellationToken);
+        InsertAsync(new ReportHeader(report.Tenant, report.Id, report.CreatedAt, report.Title, report.Verdict, report.ProjectId), report.Json, cancellationToken);
 
     /// <summary>
     /// Streams the JSON into the text column: Npgsql writes a seekable stream's bytes as the parameter (its length is
@@ -33,13 +33,14 @@ internal sealed class PostgresReportStore(NpgsqlDataSource dataSource) : IReport
     private NpgsqlCommand InsertCommand(ReportHeader header, object json, string onConflict)
     {
         var command = dataSource.CreateCommand(
-            "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($1, $2, $3, $4, $5, $6)" + onConflict);
+            "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($1, $2, $3, $4, $5, $6, $7)" + onConflict);
         command.Parameters.Add(new NpgsqlParameter { Value = header.Tenant });
         command.Parameters.Add(new NpgsqlParameter { Value = header.Id });
         command.Parameters.Add(new NpgsqlParameter { Value = header.CreatedAt.ToUniversalTime() });
         command.Parameters.Add(new NpgsqlParameter { Value = (object?)header.Title ?? DBNull.Value, NpgsqlDbType = NpgsqlDbType.Text });
         command.Parameters.Add(new NpgsqlParameter { Value = header.Verdict });
         command.Parameters.Add(new NpgsqlParameter { Value = json, NpgsqlDbType = NpgsqlDbType.Text });
+        command.Parameters.Add(new NpgsqlParameter { Value = (object?)header.ProjectId ?? DBNull.Value, NpgsqlDbType = NpgsqlDbType.Text });
         return command;
     }
 

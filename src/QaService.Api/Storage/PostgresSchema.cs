@@ -94,6 +94,41 @@ internal static class PostgresSchema
         );
         CREATE INDEX staged_uploads_expiry ON staged_uploads (expires_at);
         """,
+        // 7: projects (a contract's spec, kept as the JSON sent); a report may be a delivery of one.
+        """
+        CREATE TABLE projects (
+            tenant     text        NOT NULL,
+            id         text        NOT NULL,
+            name       text        NOT NULL,
+            created_at timestamptz NOT NULL,
+            spec       text        NOT NULL,
+            PRIMARY KEY (tenant, id)
+        );
+        ALTER TABLE reports ADD COLUMN project_id text,
+            ADD CONSTRAINT reports_project_fk FOREIGN KEY (tenant, project_id) REFERENCES projects (tenant, id);
+        CREATE INDEX reports_by_project ON reports (tenant, project_id, created_at) WHERE project_id IS NOT NULL;
+        """,
+        // 8: sign-off decisions, append-only (no UPDATE); they go with their report (ON DELETE CASCADE).
+        """
+        CREATE TABLE decisions (
+            seq           bigint GENERATED ALWAYS AS IDENTITY PRIMARY KEY,
+            tenant        text        NOT NULL,
+            report_id     text        NOT NULL,
+            decision      text        NOT NULL CHECK (decision IN ('accepted', 'rejected')),
+            decided_by    text        NOT NULL,
+            comment       text,
+            decided_at    timestamptz NOT NULL,
+            report_sha256 text        NOT NULL,
+            FOREIGN KEY (tenant, report_id) REFERENCES reports (tenant, id) ON DELETE CASCADE
+        );
+        CREATE INDEX decisions_by_report ON decisions (tenant, report_id, seq);
+        CREATE FUNCTION decisions_append_only() RETURNS trigger LANGUAGE plpgsql AS $$
+        BEGIN
+            RAISE EXCEPTION 'decisions are append-only';
+        END;
+        $$;
+        CREATE TRIGGER decisions_no_update BEFORE UPDATE ON decisions FOR EACH ROW EXECUTE FUNCTION decisions_append_only();
+        """,
     ];
 
     /// <summary>The schema version this build migrates to (the number of migrations).</summary>

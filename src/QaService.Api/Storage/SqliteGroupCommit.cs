@@ -65,7 +65,7 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
             {
                 await using var command = connection.CreateCommand();
                 command.Transaction = transaction;
-                command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT))";
+                command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT), $project)";
                 var header = batch[i].Header;
                 command.Parameters.AddWithValue("$tenant", header.Tenant);
                 command.Parameters.AddWithValue("$id", header.Id);
@@ -73,6 +73,7 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
                 command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
                 command.Parameters.AddWithValue("$verdict", header.Verdict);
                 command.Parameters.AddWithValue("$json", batch[i].Json);
+                command.Parameters.AddWithValue("$project", (object?)header.ProjectId ?? DBNull.Value);
                 await command.ExecuteNonQueryAsync();
                 await Execute(connection, transaction, "RELEASE report");
             }

@@ -31,13 +31,14 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     {
         await using var connection = await OpenAsync(cancellationToken);
         await using var command = connection.CreateCommand();
-        command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, $json)";
+        command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($tenant, $id, $created, $title, $verdict, $json, $project)";
         command.Parameters.AddWithValue("$tenant", report.Tenant);
         command.Parameters.AddWithValue("$id", report.Id);
         command.Parameters.AddWithValue("$created", report.CreatedAt.UtcDateTime.ToString("O"));
         command.Parameters.AddWithValue("$title", (object?)report.Title ?? DBNull.Value);
         command.Parameters.AddWithValue("$verdict", report.Verdict);
         command.Parameters.AddWithValue("$json", report.Json);
+        command.Parameters.AddWithValue("$project", (object?)report.ProjectId ?? DBNull.Value);
         await command.ExecuteNonQueryAsync(cancellationToken);
     }
 
@@ -79,13 +80,14 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         await using (var command = connection.CreateCommand())
         {
             command.Transaction = transaction;
-            command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ($tenant, $id, $created, $title, $verdict, zeroblob($length)) RETURNING rowid";
+            command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($tenant, $id, $created, $title, $verdict, zeroblob($length), $project) RETURNING rowid";
             command.Parameters.AddWithValue("$tenant", header.Tenant);
             command.Parameters.AddWithValue("$id", header.Id);
             command.Parameters.AddWithValue("$created", header.CreatedAt.UtcDateTime.ToString("O"));
             command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
             command.Parameters.AddWithValue("$verdict", header.Verdict);
             command.Parameters.AddWithValue("$length", length);
+            command.Parameters.AddWithValue("$project", (object?)header.ProjectId ?? DBNull.Value);
             rowId = Convert.ToInt64(await command.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture);
         }
         await using (var blob = new SqliteBlob(connection, "reports", "json", rowId))

@@ -68,6 +68,43 @@ internal static class SqliteSchema
         );
         CREATE INDEX staged_uploads_expiry ON staged_uploads (expires_ms);
         """,
+        // 6: projects (a contract's spec, kept as the JSON sent); a report may be a delivery of one.
+        """
+        CREATE TABLE projects (
+            tenant     TEXT NOT NULL,
+            id         TEXT NOT NULL,
+            name       TEXT NOT NULL,
+            created_at TEXT NOT NULL,
+            spec       TEXT NOT NULL,
+            PRIMARY KEY (tenant, id)
+        );
+        -- SQLite cannot add the composite key (tenant, project_id) to an existing table; the service checks it on write.
+        ALTER TABLE reports ADD COLUMN project_id TEXT;
+        CREATE INDEX reports_by_project ON reports (tenant, project_id, created_at) WHERE project_id IS NOT NULL;
+        """,
+        // 7: sign-off decisions, append-only; they go with their report (the trigger does it even with foreign_keys off).
+        """
+        CREATE TABLE decisions (
+            seq           INTEGER PRIMARY KEY AUTOINCREMENT,
+            tenant        TEXT NOT NULL,
+            report_id     TEXT NOT NULL,
+            decision      TEXT NOT NULL CHECK (decision IN ('accepted', 'rejected')),
+            decided_by    TEXT NOT NULL,
+            comment       TEXT,
+            decided_at    TEXT NOT NULL,
+            report_sha256 TEXT NOT NULL,
+            FOREIGN KEY (tenant, report_id) REFERENCES reports (tenant, id) ON DELETE CASCADE
+        );
+        CREATE INDEX decisions_by_report ON decisions (tenant, report_id, seq);
+        CREATE TRIGGER decisions_follow_report AFTER DELETE ON reports
+        BEGIN
+            DELETE FROM decisions WHERE tenant = old.tenant AND report_id = old.id;
+        END;
+        CREATE TRIGGER decisions_append_only BEFORE UPDATE ON decisions
+        BEGIN
+            SELECT RAISE(ABORT, 'decisions are append-only');
+        END;
+        """,
     ];
 
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)

@@ -22,6 +22,8 @@ internal static class StorageRegistration
             services.AddSingleton<ITenantStore, PostgresTenantStore>();
             services.AddSingleton<IShareLinkStore, PostgresShareLinkStore>();
             services.AddSingleton<IUploadStagingStore, PostgresUploadStagingStore>();
+            services.AddSingleton<IProjectStore, PostgresProjectStore>();
+            services.AddSingleton<IDecisionStore, PostgresDecisionStore>();
         }
         else
         {
@@ -29,6 +31,8 @@ internal static class StorageRegistration
             services.AddSingleton<ITenantStore, SqliteTenantStore>();
             services.AddSingleton<IShareLinkStore, SqliteShareLinkStore>();
             services.AddSingleton<IUploadStagingStore, SqliteUploadStagingStore>();
+            services.AddSingleton<IProjectStore, SqliteProjectStore>();
+            services.AddSingleton<IDecisionStore, SqliteDecisionStore>();
         }
         return services;
     }

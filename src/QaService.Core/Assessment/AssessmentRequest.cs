@@ -11,13 +11,15 @@ namespace QaService.Core.Assessment;
 /// <param name="Spec">Required accuracy; either figure may be omitted.</param>
 /// <param name="Pairing">When given, fixes without <c>mark</c> pair with the nearest mark within the radius.</param>
 /// <param name="Exclusions">Fixes the QA lead leaves out of the statistics, each with a reason.</param>
+/// <param name="ProjectId">The project (contract) this delivery belongs to; its spec applies when <paramref name="Spec"/> is absent.</param>
 public sealed record AssessmentRequest(
     PointSet? Marks,
     PointSet? Fixes,
     string? Title = null,
     AccuracySpec? Spec = null,
     PairingOptions? Pairing = null,
-    IReadOnlyList<Exclusion?>? Exclusions = null);
+    IReadOnlyList<Exclusion?>? Exclusions = null,
+    string? ProjectId = null);
 
 /// <summary>A set of points in one CRS and height reference.</summary>
 /// <param name="Crs"><c>"EPSG:&lt;code&gt;"</c> (OGC WKT arrives with the geodesy catalog).</param>

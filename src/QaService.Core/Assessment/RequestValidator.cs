@@ -170,6 +170,16 @@ public static class RequestValidator
             errors.Add(new(Format($"/marks/points/{mark.Index}/id"), $"mark id \"{mark.Id}\" appears more than once"));
     }
 
+    /// <summary>
+    /// The checks a request's <c>spec</c> gets, for a spec stored elsewhere (a project's): problems point at <c>/spec/…</c>.
+    /// </summary>
+    public static IReadOnlyList<InputError> ValidateSpec(AccuracySpec spec)
+    {
+        var errors = new List<InputError>();
+        ReadSpec(spec, errors);
+        return errors;
+    }
+
     private static RequiredAccuracy? ReadSpec(AccuracySpec? spec, List<InputError> errors)
     {
         if (spec is null)

@@ -8,6 +8,7 @@ namespace QaService.Core.Ingest;
 /// </summary>
 /// <param name="RowErrors"><c>strict</c> (default: any row that cannot be read rejects the upload with 400) or
 /// <c>lenient</c> (such rows are listed in the report's <c>ingest</c> block and the rest is assessed).</param>
+/// <param name="ProjectId">As in the JSON request: the project whose spec applies when <paramref name="Spec"/> is absent.</param>
 public sealed record UploadOptions(
     FilePartOptions? Marks = null,
     FilePartOptions? Fixes = null,
@@ -15,7 +16,8 @@ public sealed record UploadOptions(
     AccuracySpec? Spec = null,
     PairingOptions? Pairing = null,
     IReadOnlyList<Exclusion?>? Exclusions = null,
-    string? RowErrors = null);
+    string? RowErrors = null,
+    string? ProjectId = null);
 
 /// <summary>How to read one file part, and the frame its points are in.</summary>
 /// <param name="Crs">As in the JSON request. GeoJSON, GPX and NMEA default to EPSG:4979 (their formats fix WGS 84 latitude/longitude).</param>

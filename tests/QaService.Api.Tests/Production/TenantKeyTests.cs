@@ -2,6 +2,7 @@ using System.Diagnostics;
 using System.Net;
 using System.Net.Http.Json;
 using System.Text;
+using System.Text.Json;
 using Microsoft.Data.Sqlite;
 using QaService.Api.Tests.Support;
 
@@ -116,7 +117,40 @@ public sealed class TenantKeyTests(KeysHost host) : IClassFixture<KeysHost>
 
     /// <summary>Every path under an assessment that returns its data.</summary>
     internal static IEnumerable<string> TenantScopedReadPaths(string location) =>
-        [location, $"{location}/report.html", $"{location}/residuals.csv", $"{location}/residuals.geojson"];
+        [location, $"{location}/report.html", $"{location}/residuals.csv", $"{location}/residuals.geojson", $"{location}/decisions"];
+
+    /// <summary>Every path under a project that returns its data.</summary>
+    internal static IEnumerable<string> ProjectScopedReadPaths(string location) => [location, $"{location}/report.html"];
+
+    [Fact]
+    public async Task Projects_and_decisions_are_404_to_another_tenant()
+    {
+        var (_, north) = await host.CreateTenantAsync();
+        var (_, south) = await host.CreateTenantAsync();
+        var created = await host.Client(north).PostAsync("/v1/projects",
+            new StringContent("""{ "name": "North depot mains", "spec": { "horizontal": 0.5 } }""", Encoding.UTF8, "application/json"));
+        Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+        var location = created.Headers.Location!.OriginalString;
+        var projectId = location.Split('/')[^1];
+        foreach (var path in ProjectScopedReadPaths(location))
+        {
+            Assert.Equal(HttpStatusCode.OK, (await host.Client(north).GetAsync(path)).StatusCode);
+            await ProblemAssert.IsProblemAsync(await host.Client(south).GetAsync(path), HttpStatusCode.NotFound);
+        }
+        Assert.DoesNotContain(projectId, await host.Client(south).GetStringAsync("/v1/projects"));
+
+        // Another tenant's project cannot be named by a delivery, and its report cannot be signed off.
+        var request = Requests.Minimal();
+        request["projectId"] = projectId;
+        await ProblemAssert.IsBadInputAsync(await host.Client(south).PostJsonAsync(request), "/projectId", "no project");
+        var report = await host.Client(north).PostJsonAsync(request);
+        Assert.Equal(HttpStatusCode.Created, report.StatusCode);
+        var decisions = $"{report.Headers.Location!.OriginalString}/decisions";
+        var decision = new StringContent("""{ "decision": "accepted", "by": "intruder" }""", Encoding.UTF8, "application/json");
+        await ProblemAssert.IsProblemAsync(await host.Client(south).PostAsync(decisions, decision), HttpStatusCode.NotFound);
+        var own = JsonDocument.Parse(await host.Client(north).GetStringAsync(decisions)).RootElement;
+        Assert.Empty(own.GetProperty("decisions").EnumerateArray());
+    }
 
     [Fact]
     public async Task Admin_creates_a_tenant_and_the_key_is_shown_once_and_stored_only_as_its_sha256()

@@ -86,6 +86,10 @@ public static class PageStyle
         svg .mean{stroke:var(--ink);stroke-dasharray:6 3;stroke-width:1.2}
         svg .level-95{stroke:var(--fail);stroke-dasharray:1.5 2.5;stroke-width:1.6}
         svg .stem{stroke:#b5ad9c;stroke-width:1}
+        svg .series polyline{fill:none;stroke-width:1.8}svg .s-nh polyline{stroke:var(--dot)}svg .s-nh circle{fill:var(--dot)}svg .s-rh polyline{stroke:var(--dot);stroke-dasharray:5 3}svg .s-rh circle{fill:#fff;stroke:var(--dot)}
+        svg .s-nv polyline{stroke:var(--rule)}svg .s-nv circle{fill:var(--rule)}svg .s-rv polyline{stroke:var(--rule);stroke-dasharray:5 3}svg .s-rv circle{fill:#fff;stroke:var(--rule)}
+        .k-nh{border-top:2px solid var(--dot)}.k-rh{border-top:2px dashed var(--dot)}.k-nv{border-top:2px solid var(--rule)}.k-rv{border-top:2px dashed var(--rule)}
+        .choice{border:0;padding:0;margin:0 0 .6rem}.upload .choice label{display:inline;font-weight:400;margin-right:1.2rem}.upload input[type=text],.upload input:not([type]){font:inherit;padding:.3rem;border:1px solid #9a9384;border-radius:4px;width:100%;max-width:24rem}
         tr.excluded td,tr.excluded th{color:var(--muted);text-decoration:line-through;text-decoration-color:#b5ad9c}
         tr.flagged{background:var(--open-bg)}
         .why{text-decoration:none}

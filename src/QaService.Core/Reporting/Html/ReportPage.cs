@@ -13,7 +13,10 @@ public static class ReportPage
 {
     public static string Render(AssessmentReport report) => Render(report, PlotDataBuilder.Build(report));
 
-    public static string Render(AssessmentReport report, PlotData plots)
+    /// <summary>The page with the sign-off section (decisions and hash are extra data: the stored report is not touched).</summary>
+    public static string Render(AssessmentReport report, SignOffPanel? signOff) => Render(report, PlotDataBuilder.Build(report), signOff);
+
+    public static string Render(AssessmentReport report, PlotData plots, SignOffPanel? signOff = null)
     {
         var html = new StringBuilder(64 * 1024);
         string title = string.IsNullOrWhiteSpace(report.Title) ? "Untitled assessment" : report.Title;
@@ -29,6 +32,8 @@ public static class ReportPage
         ResidualTable.Render(html, report, plots);
         MethodNotes.Render(html, report);
         CautionsSection.Render(html, report);
+        if (signOff is not null)
+            SignOffSection.Render(html, report.Id, signOff);
 
         PageShell.Close(html, $"Report {Escape(report.Id)}. A statistical accuracy test of the submitted positions against the submitted check points; not a survey certification.");
         return html.ToString();
