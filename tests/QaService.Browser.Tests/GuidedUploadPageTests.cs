@@ -127,7 +127,7 @@ public sealed class GuidedUploadPageTests(LiveService service, ITestOutputHelper
     }
 
     /// <summary>Everything of step one but the marks CRS.</summary>
-    private static async Task FillRestAsync(IPage page, string title, (FilePayload Marks, FilePayload Fixes) files, string horizontal = "10")
+    internal static async Task FillRestAsync(IPage page, string title, (FilePayload Marks, FilePayload Fixes) files, string horizontal = "10")
     {
         await page.Locator("#fixesCrs").FillAsync("EPSG:4979");
         await page.Locator("#standard").SelectOptionAsync("nssda");
@@ -141,7 +141,7 @@ public sealed class GuidedUploadPageTests(LiveService service, ITestOutputHelper
     }
 
     /// <summary>The preview: the detector left lat unmapped; the person picks the column, runs, and reads the report.</summary>
-    private static async Task ChangeColumnAndRunAsync(IPage page, string title)
+    internal static async Task ChangeColumnAndRunAsync(IPage page, string title)
     {
         Assert.Contains("CSV", await page.Locator("#fixes-format").InnerTextAsync());
         Assert.Equal(5, await page.Locator("#fixes-preview tbody tr").CountAsync());

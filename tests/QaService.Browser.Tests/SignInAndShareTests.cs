@@ -103,7 +103,7 @@ public sealed class SignInAndShareTests(KeysLiveService service, ITestOutputHelp
     }
 
     /// <summary>Stores the demo request under another title for the tenant; returns the report's path.</summary>
-    private async Task<string> CreateReportAsync(string key, string title)
+    internal async Task<string> CreateReportAsync(string key, string title)
     {
         var request = JsonNode.Parse(await File.ReadAllTextAsync(HostileInputTests.DemoRequestPath()))!;
         request["title"] = title;
@@ -112,7 +112,7 @@ public sealed class SignInAndShareTests(KeysLiveService service, ITestOutputHelp
         return response.Headers.Location!.OriginalString;
     }
 
-    private async Task<(string Id, string Url, DateTimeOffset ExpiresAt)> ShareAsync(string key, string report, double hours)
+    internal async Task<(string Id, string Url, DateTimeOffset ExpiresAt)> ShareAsync(string key, string report, double hours)
     {
         var response = await service.Send(HttpMethod.Post, $"{report.TrimStart('/')}/share-links", key,
             new StringContent(JsonSerializer.Serialize(new { expiresInHours = hours }), Encoding.UTF8, "application/json"));
