@@ -277,6 +277,51 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
     }
 
     [Fact]
+    public async Task Screening_with_a_project_calibrates_from_its_deliveries()
+    {
+        var name = $"Larkfield hydrants {Guid.NewGuid():N}";
+        var created = await client.PostAsync("/v1/projects", new StringContent(
+            $$"""{ "name": "{{name}}", "spec": { "horizontal": 0.5 } }""", Encoding.UTF8, "application/json"));
+        var projectText = await created.Content.ReadAsStringAsync();
+        Assert.True(created.StatusCode == HttpStatusCode.Created, projectText);
+        var projectId = JsonDocument.Parse(projectText).RootElement.GetProperty("id").GetString()!;
+        var request = Request();
+        request["projectId"] = projectId;
+        await Create(request);
+
+        var response = await Screen($$"""
+            { "profile": "utility-locating-rtk", "projectId": "{{projectId}}", "fixes": [
+              { "id": "S1", "receiver": "GX-10", "quality": "rtk-fixed", "satellites": 14, "horizontalError": 0.007 } ] }
+            """);
+        var text = await response.Content.ReadAsStringAsync();
+        Assert.True(response.StatusCode == HttpStatusCode.OK, text);
+        var screening = JsonDocument.Parse(text).RootElement;
+        // The project's one delivery is the reference request: the same ratios as numpy's (group-cases.json).
+        var entries = screening.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
+        var expected = Reference.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
+        Assert.Equal(expected.Count, entries.Count);
+        for (var i = 0; i < expected.Count; i++)
+        {
+            var ratio = expected[i].GetProperty("ratio").GetDouble();
+            Assert.True(Math.Abs(ratio - entries[i].GetProperty("ratio").GetDouble()) <= 1e-5 * ratio, $"entry {i}");
+        }
+        Assert.Contains(name, screening.GetProperty("calibration").GetRawText());
+        Assert.Contains("36 pairs", screening.GetProperty("results")[0].GetProperty("calibration").GetString());
+
+        var unknown = await Screen("""{ "projectId": "no-such-project", "fixes": [ { "id": "S1", "receiver": "GX-10", "hdop": 1.0 } ] }""");
+        Assert.Equal("/projectId", await ProblemPointer(unknown));
+        var both = await Screen($$"""{ "projectId": "{{projectId}}", "calibration": { "entries": [] }, "fixes": [ { "id": "S1", "hdop": 1.0 } ] }""");
+        Assert.Equal("/calibration", await ProblemPointer(both));
+    }
+
+    private static async Task<string?> ProblemPointer(HttpResponseMessage response)
+    {
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        var problem = JsonDocument.Parse(await response.Content.ReadAsStringAsync()).RootElement;
+        return problem.GetProperty("errors")[0].GetProperty("pointer").GetString();
+    }
+
+    [Fact]
     public async Task Screening_takes_inline_calibration_entries()
     {
         var response = await Screen("""

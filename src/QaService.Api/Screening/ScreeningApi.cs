@@ -36,13 +36,15 @@ internal static class ScreeningApi
         return group;
     }
 
-    internal static async Task<IResult> ScreenAsync(HttpRequest request, JsonBodyReader<ScreeningRequest> reader, IReportStore store, ITenantContext tenant,
-        CancellationToken cancellationToken)
+    internal static async Task<IResult> ScreenAsync(HttpRequest request, JsonBodyReader<ScreeningRequest> reader, IReportStore store, IProjectStore projects,
+        ITenantContext tenant, CancellationToken cancellationToken)
     {
         var (body, problem) = await reader.ReadAsync(request, cancellationToken);
         if (problem is not null)
             return problem;
-        var (residuals, source, missing) = await CalibrationResidualsAsync(body?.Calibration, store, tenant.TenantId, cancellationToken);
+        var (residuals, source, missing) = body?.ProjectId is { } projectId
+            ? await ProjectResidualsAsync(projectId, projects, store, tenant.TenantId, cancellationToken)
+            : await CalibrationResidualsAsync(body?.Calibration, store, tenant.TenantId, cancellationToken);
         if (missing.Count > 0)
             return InputProblems.Invalid(missing);
         var (report, errors) = FixScreening.Screen(body, residuals, source);
@@ -72,6 +74,26 @@ internal static class ScreeningApi
         return (residuals, "assessments " + string.Join(", ", ids.Select(id => id!.Trim())), missing);
     }
 
+    /// <summary>
+    /// The residuals of every delivery of the tenant's project <paramref name="projectId"/> (another tenant's project is "no
+    /// such project"); the calibration then says which project and how many assessments it rests on.
+    /// </summary>
+    private static async Task<(List<Residual>? Residuals, string? Source, List<InputError> Missing)> ProjectResidualsAsync(
+        string projectId, IProjectStore projects, IReportStore store, string tenant, CancellationToken cancellationToken)
+    {
+        var project = string.IsNullOrWhiteSpace(projectId) ? null : await projects.FindAsync(tenant, projectId.Trim(), cancellationToken);
+        if (project is null)
+            return (null, null, [new("/projectId", $"no project \"{projectId}\"")]);
+        var residuals = new List<Residual>();
+        var deliveries = await projects.ListDeliveriesAsync(tenant, project.Id, cancellationToken);
+        foreach (var delivery in deliveries)
+        {
+            if (await StoredReports.LoadAsync(store, tenant, delivery.Report.Id, cancellationToken) is { } report)
+                residuals.AddRange(report.Residuals);
+        }
+        return (residuals, string.Create(CultureInfo.InvariantCulture, $"project \"{project.Name}\" ({deliveries.Count} assessments)"), []);
+    }
+
     /// <summary>The profiles, written out for the OpenAPI description from the same objects the rules use.</summary>
     private static string Description()
     {
@@ -80,7 +102,7 @@ internal static class ScreeningApi
             "pdop/hdop/vdop (flag above the profile's maximum), horizontal-error and vertical-error (reported estimates: flag/reject above the profile's limits), " +
             "correction-age (flag/reject), elevation-mask (flag below the minimum: low satellites suffer more ionospheric delay), expected-error (autonomous fixes: " +
             "2·HDOP·UERE(1σ), UERE(95 %) 15.7 m C/A budget, flagged above the horizontal flag limit; autonomous is typically 5–10 m; with \"calibration\" " +
-            "(stored assessment ids, or entries), any fix naming its receiver: 2 · ratio · predicted radial σ, the ratio being that receiver's observed/reported RMS " +
+            "(stored assessment ids, or entries; or \"projectId\": that project's deliveries), any fix naming its receiver: 2 · ratio · predicted radial σ, the ratio being that receiver's observed/reported RMS " +
             "radial error on at least minimumPairs (default 20) assessed pairs, else the profile's rule, and each result says which). " +
             "Rules marked \"common practice\" have no standard behind their numbers. Every threshold can be overridden in \"thresholds\". Profiles:");
         foreach (var p in ScreeningProfiles.All)

@@ -24,7 +24,7 @@ public static class FixScreening
         if (profile is null)
             errors.Add(new("/profile", $"no profile \"{request.Profile}\"; the profiles are {string.Join(", ", ScreeningProfiles.All.Select(p => p.Name))}"));
         CheckThresholds(request.Thresholds, errors);
-        CheckCalibration(request.Calibration, errors);
+        CheckCalibration(request.Calibration, request.ProjectId is not null, errors);
         if (request.Fixes is null || request.Fixes.Count == 0)
             errors.Add(new("/fixes", "at least one fix is required"));
         else if (request.Fixes.Count > MaximumFixes)
@@ -65,11 +65,13 @@ public static class FixScreening
     /// <summary>Most assessments one calibration may name (each is read whole from storage).</summary>
     public const int MaximumCalibrationAssessments = 50;
 
-    private static void CheckCalibration(ScreeningCalibrationInput? input, List<InputError> errors)
+    private static void CheckCalibration(ScreeningCalibrationInput? input, bool fromProject, List<InputError> errors)
     {
         if (input is null)
             return;
-        if ((input.Assessments is null) == (input.Entries is null))
+        if (fromProject && (input.Assessments is not null || input.Entries is not null))
+            errors.Add(new("/calibration", "\"projectId\" already names the assessments that calibrate; leave out \"assessments\" and \"entries\" (minimumPairs may stay)"));
+        else if (!fromProject && (input.Assessments is null) == (input.Entries is null))
             errors.Add(new("/calibration", "give either \"assessments\" (stored assessment ids) or \"entries\", not both and not neither"));
         if (input.MinimumPairs is < 2)
             errors.Add(new("/calibration/minimumPairs", "minimumPairs is a count of at least 2"));

@@ -5,8 +5,10 @@ namespace QaService.Core.Screening;
 /// <param name="Thresholds">Values that override the profile's for this request.</param>
 /// <param name="Fixes">The fixes with their receiver metadata.</param>
 /// <param name="Calibration">Learned ratios of observed to reported error per receiver, for the expected-error rule.</param>
+/// <param name="ProjectId">A project of this tenant: its deliveries' counted pairs calibrate the receivers (instead of
+/// <c>calibration.assessments</c>/<c>entries</c>; <c>calibration.minimumPairs</c> still applies).</param>
 public sealed record ScreeningRequest(string? Profile = null, ScreeningThresholds? Thresholds = null, IReadOnlyList<ScreeningFix?>? Fixes = null,
-    ScreeningCalibrationInput? Calibration = null);
+    ScreeningCalibrationInput? Calibration = null, string? ProjectId = null);
 
 /// <summary>
 /// Where the expected-error rule's calibration comes from: stored assessments (their residuals' receivers, reported σ/HDOP and
