@@ -15,10 +15,15 @@ public static class AxeAudit
     /// <summary>The impacts that fail a page (axe's scale: minor, moderate, serious, critical).</summary>
     private static readonly string[] FailingImpacts = ["serious", "critical"];
 
-    private static readonly Lazy<string> Script = new(() => File.Exists(ScriptPath) ? File.ReadAllText(ScriptPath)
-        : throw new FileNotFoundException(
-            (Environment.GetEnvironmentVariable("CI") == "true" ? "CI=true and " : "") +
-            $"axe-core is not installed at {ScriptPath}: run `npm ci --prefix tools/browser-checks` (as .ci/run does) before the browser tests", ScriptPath));
+    /// <summary>axe-core's script; <c>npm ci</c> installs it first when tools/browser-checks has no node_modules.</summary>
+    private static readonly Lazy<string> Script = new(() => File.ReadAllText(InstalledScript()));
+
+    private static string InstalledScript()
+    {
+        QaService.Tests.Shared.NpmTools.EnsureInstalled("browser-checks");
+        return File.Exists(ScriptPath) ? ScriptPath
+            : throw new FileNotFoundException($"axe-core is not at {ScriptPath} after npm ci --prefix tools/browser-checks", ScriptPath);
+    }
 
     public static string ScriptPath { get; } = Path.Combine(RepositoryRoot(), "tools", "browser-checks", "node_modules", "axe-core", "axe.min.js");
 

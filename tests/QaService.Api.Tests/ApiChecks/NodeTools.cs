@@ -5,8 +5,8 @@ namespace QaService.Api.Tests.ApiChecks;
 
 /// <summary>
 /// The npm tools in tools/api-checks (versions pinned by its package-lock.json: @redocly/cli, openapi-typescript,
-/// openapi-fetch, typescript), run with Node. Missing tools fail the test, never pass it silently: CI runs
-/// <c>npm ci --prefix tools/api-checks</c> in .ci/run; locally run the same once.
+/// openapi-fetch, typescript), run with Node; installed by <see cref="NpmTools"/> when absent. Missing tools fail the
+/// test, never pass it silently.
 /// </summary>
 internal static class NodeTools
 {
@@ -14,10 +14,12 @@ internal static class NodeTools
 
     public static string Folder { get; } = Path.Combine(ServiceProcess.RepositoryRoot(), "tools", "api-checks");
 
+    private static readonly Lazy<string> Installed = new(() => NpmTools.EnsureInstalled("api-checks"));
+
     /// <summary>Path of an installed tool's entry script (node_modules/.bin/&lt;name&gt;); fails the test when it is not installed.</summary>
     public static string Bin(string name)
     {
-        var path = Path.Combine(Folder, "node_modules", ".bin", name);
+        var path = Path.Combine(Installed.Value, "node_modules", ".bin", name);
         if (File.Exists(path))
             return path;
         var why = Environment.GetEnvironmentVariable("CI") == "true"
