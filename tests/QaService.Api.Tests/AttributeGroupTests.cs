@@ -242,19 +242,7 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
         Assert.True(response.StatusCode == HttpStatusCode.OK, text);
         var screening = JsonDocument.Parse(text).RootElement;
 
-        // Every entry against numpy's ratio.
-        var entries = screening.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
-        var expected = Reference.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
-        Assert.Equal(expected.Count, entries.Count);
-        for (var i = 0; i < expected.Count; i++)
-        {
-            Assert.Equal(expected[i].GetProperty("receiver").GetString(), entries[i].GetProperty("receiver").GetString());
-            Assert.Equal(expected[i].GetProperty("quality").ToString(), entries[i].GetProperty("quality").ToString());
-            Assert.Equal(expected[i].GetProperty("basis").GetString(), entries[i].GetProperty("basis").GetString());
-            Assert.Equal(expected[i].GetProperty("pairs").GetInt32(), entries[i].GetProperty("pairs").GetInt32());
-            var ratio = expected[i].GetProperty("ratio").GetDouble();
-            Assert.True(Math.Abs(ratio - entries[i].GetProperty("ratio").GetDouble()) <= 1e-5 * ratio, $"entry {i}");
-        }
+        var expected = AssertCalibrationMatchesReference(screening);
 
         // GX-10 rtk-fixed has 18 pairs (< 20), so GX-10 over all fix types (36 pairs) is used: ratio ≈ 2.165.
         var gx10 = expected.Single(e => e.GetProperty("receiver").GetString() == "GX-10" && e.GetProperty("quality").ValueKind == JsonValueKind.Null
@@ -297,14 +285,7 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
         Assert.True(response.StatusCode == HttpStatusCode.OK, text);
         var screening = JsonDocument.Parse(text).RootElement;
         // The project's one delivery is the reference request: the same ratios as numpy's (group-cases.json).
-        var entries = screening.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
-        var expected = Reference.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
-        Assert.Equal(expected.Count, entries.Count);
-        for (var i = 0; i < expected.Count; i++)
-        {
-            var ratio = expected[i].GetProperty("ratio").GetDouble();
-            Assert.True(Math.Abs(ratio - entries[i].GetProperty("ratio").GetDouble()) <= 1e-5 * ratio, $"entry {i}");
-        }
+        AssertCalibrationMatchesReference(screening);
         Assert.Contains(name, screening.GetProperty("calibration").GetRawText());
         Assert.Contains("36 pairs", screening.GetProperty("results")[0].GetProperty("calibration").GetString());
 
@@ -312,6 +293,24 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
         Assert.Equal("/projectId", await ProblemPointer(unknown));
         var both = await Screen($$"""{ "projectId": "{{projectId}}", "calibration": { "entries": [] }, "fixes": [ { "id": "S1", "hdop": 1.0 } ] }""");
         Assert.Equal("/calibration", await ProblemPointer(both));
+    }
+
+    /// <summary>Every calibration entry of a screening against numpy's (group-cases.json); returns the reference entries.</summary>
+    private static List<JsonElement> AssertCalibrationMatchesReference(JsonElement screening)
+    {
+        var entries = screening.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
+        var expected = Reference.GetProperty("calibration").GetProperty("entries").EnumerateArray().ToList();
+        Assert.Equal(expected.Count, entries.Count);
+        for (var i = 0; i < expected.Count; i++)
+        {
+            Assert.Equal(expected[i].GetProperty("receiver").GetString(), entries[i].GetProperty("receiver").GetString());
+            Assert.Equal(expected[i].GetProperty("quality").ToString(), entries[i].GetProperty("quality").ToString());
+            Assert.Equal(expected[i].GetProperty("basis").GetString(), entries[i].GetProperty("basis").GetString());
+            Assert.Equal(expected[i].GetProperty("pairs").GetInt32(), entries[i].GetProperty("pairs").GetInt32());
+            var ratio = expected[i].GetProperty("ratio").GetDouble();
+            Assert.True(Math.Abs(ratio - entries[i].GetProperty("ratio").GetDouble()) <= 1e-5 * ratio, $"entry {i}");
+        }
+        return expected;
     }
 
     private static async Task<string?> ProblemPointer(HttpResponseMessage response)
