@@ -156,7 +156,7 @@ public sealed class DatumGraph
     }
 
     /// <summary>Edges of the cheapest path from one datum to another (area preference as in the class summary); empty when equal; null when unconnected.</summary>
-    public IReadOnlyList<DatumEdge>? FindPath(string fromDatum, string toDatum, AreaOfUse? pointsBox = null, Func<DatumEdge, bool>? allowed = null)
+    private IReadOnlyList<DatumEdge>? FindPath(string fromDatum, string toDatum, AreaOfUse? pointsBox = null, Func<DatumEdge, bool>? allowed = null)
     {
         allowed ??= _ => true;
         if (pointsBox is null)
