@@ -95,6 +95,41 @@ public sealed partial class ListPageTests
     }
 
     [Fact]
+    public async Task Share_posts_a_form_with_its_token_and_shows_a_link_that_opens_without_credentials()
+    {
+        using var factory = new QaServiceFactory();
+        var client = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        var created = await client.PostJsonAsync(Requests.Minimal());
+        Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+        var id = created.Headers.Location!.OriginalString.Split('/')[^1];
+        var form = ShareForm().Match(await client.GetStringAsync("/ui/assessments"));
+        Assert.True(form.Success, "no share form");
+        Assert.Equal(id, form.Groups["id"].Value);
+
+        // Without the token: refused, no link.
+        var forged = await client.PostAsync($"/ui/assessments/{id}/share", new FormUrlEncodedContent([new("x", "")]));
+        Assert.Equal(HttpStatusCode.BadRequest, forged.StatusCode);
+
+        var fields = new Dictionary<string, string> { [form.Groups["name"].Value] = WebUtility.HtmlDecode(form.Groups["token"].Value) };
+        var shared = await client.PostAsync($"/ui/assessments/{id}/share", new FormUrlEncodedContent(fields));
+        var page = await shared.Content.ReadAsStringAsync();
+        Assert.Equal(HttpStatusCode.Created, shared.StatusCode);
+        var url = ShareUrl().Match(page);
+        Assert.True(url.Success, page);
+        // A client with no cookies and no key opens it.
+        var stranger = factory.CreateClient();
+        Assert.Equal(HttpStatusCode.OK, (await stranger.GetAsync(new Uri(WebUtility.HtmlDecode(url.Groups[1].Value)).PathAndQuery)).StatusCode);
+
+        Assert.Equal(HttpStatusCode.NotFound, (await client.PostAsync("/ui/assessments/no-such-report/share", new FormUrlEncodedContent(fields))).StatusCode);
+    }
+
+    [GeneratedRegex("action=\"/ui/assessments/(?<id>[^/\"]+)/share\"><input type=\"hidden\" name=\"(?<name>[^\"]+)\" value=\"(?<token>[^\"]+)\">")]
+    private static partial Regex ShareForm();
+
+    [GeneratedRegex("id=\"share-url\" readonly size=\"80\" value=\"([^\"]+/shared/[^\"]+)\"")]
+    private static partial Regex ShareUrl();
+
+    [Fact]
     public async Task With_keys_required_a_browser_gets_no_list()
     {
         using var host = new KeysHost();

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using Microsoft.AspNetCore.Antiforgery;
 using Microsoft.AspNetCore.WebUtilities;
+using Microsoft.Extensions.Options;
 using QaService.Api.Assessments;
 using QaService.Api.Reports;
 using QaService.Api.Security;
@@ -27,14 +28,44 @@ internal static class ReportListPage
     {
         routes.MapGet(Path, Show).ExcludeFromDescription();
         routes.MapPost(Path + "/{id}/delete", DeleteAsync).ExcludeFromDescription();
+        routes.MapPost(Path + "/{id}/share", ShareAsync).ExcludeFromDescription();
+    }
+
+    /// <summary>How long a link made from the list page stays open, hours (the API takes any length up to Auth:ShareLinkMaxHours).</summary>
+    private const double ShareHours = 72;
+
+    /// <summary>A share link made by a person: the same link as POST /v1/assessments/{id}/share-links, shown on a page to copy.</summary>
+    private static async Task<IResult> ShareAsync(string id, HttpContext context, IAntiforgery antiforgery, Sharing.ShareLinkSigning signing,
+        IShareLinkStore links, TimeProvider clock, IOptions<AuthOptions> auth, CancellationToken cancellationToken)
+    {
+        if (context.Features.Get<TenantFeature>() is not { } tenant)
+            return Message(StatusCodes.Status403Forbidden, "Sign in first", "sign in with your team's key on the start page to share a report");
+        if (!await antiforgery.IsRequestValidAsync(context))
+            return Message(StatusCodes.Status400BadRequest, "No link made",
+                "the form was stale or did not come from this service's list page; open the list again and retry");
+        var hours = Math.Min(ShareHours, auth.Value.ShareLinkMaxHours);
+        var created = ReportIds.IsPlausible(id)
+            ? await Sharing.ShareLinksApi.IssueAsync(tenant.TenantId, id, hours, context.Request, links, signing, clock, cancellationToken)
+            : null;
+        if (created is null)
+            return Message(StatusCodes.Status404NotFound, "Not found", "there is no such assessment (it may have been deleted)");
+        var html = new StringBuilder();
+        PageShell.Open(html, "QaService — share link", "Share link made", "QaService");
+        html.Append("<p>Anyone with this link can open the report page, its CSV and its GeoJSON, without a key, until ")
+            .Append($"<time datetime=\"{Escape(created.ExpiresAt.ToString("O", CultureInfo.InvariantCulture))}\">{Escape(created.ExpiresAt.UtcDateTime.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture))} UTC</time>.</p>")
+            .Append($"<p><label for=\"share-url\">Link</label> <input id=\"share-url\" readonly size=\"80\" value=\"{Escape(created.Url)}\"></p>")
+            .Append($"<p>To end it early: <code>DELETE /v1/assessments/{Escape(id)}/share-links/{Escape(created.Id)}</code> with your key.</p>")
+            .Append($"<p><a href=\"{Path}\">Back to the list</a> · <a href=\"/\">Home</a></p>");
+        PageShell.Close(html, "The link is the permission: send it only to people who may see this report.");
+        return new HtmlPage(html.ToString(), StatusCodes.Status201Created);
     }
 
     private static async Task<IResult> Show(HttpContext context, IReportStore store, IAntiforgery antiforgery, CancellationToken cancellationToken)
     {
         // With API keys required a browser is nobody's tenant (as on the home page).
         if (context.Features.Get<TenantFeature>() is not { } tenant)
-            return Message(StatusCodes.Status403Forbidden, "Reports need an API key",
-                "this service requires API keys (Auth:Mode keys), which a browser cannot send: use GET /v1/assessments with your key instead");
+            return Message(StatusCodes.Status403Forbidden, "Sign in first",
+                "this service requires API keys (Auth:Mode keys): sign in with your team's key on the start page, or use GET /v1/assessments with the key");
 
         var query = context.Request.Query;
         var (list, errors) = ListingParameters.Read(tenant.TenantId, name => query.TryGetValue(name, out var value) ? value[0] : null);
@@ -60,8 +91,8 @@ internal static class ReportListPage
     private static async Task<IResult> DeleteAsync(string id, HttpContext context, IReportStore store, IAntiforgery antiforgery, CancellationToken cancellationToken)
     {
         if (context.Features.Get<TenantFeature>() is not { } tenant)
-            return Message(StatusCodes.Status403Forbidden, "Deleting needs an API key",
-                "this service requires API keys (Auth:Mode keys): use DELETE /v1/assessments/{id} with your key instead");
+            return Message(StatusCodes.Status403Forbidden, "Sign in first",
+                "this service requires API keys (Auth:Mode keys): sign in with your team's key on the start page, or use DELETE /v1/assessments/{id} with the key");
         // The token from the list page's form and its cookie (ASP.NET Core antiforgery): another site cannot post here.
         if (!await antiforgery.IsRequestValidAsync(context))
             return Message(StatusCodes.Status400BadRequest, "Not deleted",
@@ -116,7 +147,7 @@ internal static class ReportListPage
             return;
         }
         html.Append("<table id=\"assessments\"><caption>Assessments, newest first</caption><thead><tr><th scope=\"col\">made (UTC)</th><th scope=\"col\">title</th>")
-            .Append("<th scope=\"col\">verdict</th><th scope=\"col\">views</th><th scope=\"col\">delete</th></tr></thead><tbody>");
+            .Append("<th scope=\"col\">verdict</th><th scope=\"col\">views</th><th scope=\"col\">share</th><th scope=\"col\">delete</th></tr></thead><tbody>");
         foreach (var r in page.Items)
         {
             var title = string.IsNullOrWhiteSpace(r.Title) ? "(untitled)" : r.Title;
@@ -125,6 +156,9 @@ internal static class ReportListPage
                 .Append($"<th scope=\"row\"><a href=\"{ReportLinks.Page(r.Id)}\">{Escape(title)}</a></th>")
                 .Append($"<td><span class=\"tag {tag}\">{Escape(r.Verdict)}</span></td>")
                 .Append($"<td><a href=\"{ReportLinks.Json(r.Id)}\">JSON</a> · <a href=\"{ReportLinks.Csv(r.Id)}\">CSV</a> · <a href=\"{ReportLinks.GeoJson(r.Id)}\">GeoJSON</a></td>")
+                .Append($"<td><form class=\"upload\" method=\"post\" action=\"{Path}/{Escape(Uri.EscapeDataString(r.Id))}/share\">")
+                .Append($"<input type=\"hidden\" name=\"{Escape(token.FormFieldName)}\" value=\"{Escape(token.RequestToken)}\">")
+                .Append($"<button type=\"submit\" aria-label=\"Share {Escape(title)} for {ShareHours.ToString(CultureInfo.InvariantCulture)} hours\">Share link</button></form></td>")
                 .Append($"<td><form class=\"upload\" method=\"post\" action=\"{Path}/{Escape(Uri.EscapeDataString(r.Id))}/delete\">")
                 .Append($"<input type=\"hidden\" name=\"{Escape(token.FormFieldName)}\" value=\"{Escape(token.RequestToken)}\">")
                 .Append($"<input type=\"hidden\" name=\"{BackField}\" value=\"{Escape(listQuery)}\">")

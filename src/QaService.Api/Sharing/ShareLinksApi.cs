@@ -59,13 +59,20 @@ internal static class ShareLinksApi
         if (!ReportIds.IsPlausible(id))
             return NotFound(id);
 
+        var created = await IssueAsync(tenant.TenantId, id, hours, request, links, signing, clock, cancellationToken);
+        return created is null ? NotFound(id) : TypedResults.Created(created.Url, created);
+    }
+
+    /// <summary>Stores a new link to the tenant's report for <paramref name="hours"/>; null when the tenant has no such report.</summary>
+    internal static async Task<ShareLinkCreated?> IssueAsync(string tenant, string id, double hours, HttpRequest request, IShareLinkStore links,
+        ShareLinkSigning signing, TimeProvider clock, CancellationToken cancellationToken)
+    {
         var token = await signing.NewTokenAsync(cancellationToken);
         var now = clock.GetUtcNow();
-        var link = new StoredShareLink("sl_" + ReportIds.New(), ShareLinkSigning.Hash(token), tenant.TenantId, id, now, now + TimeSpan.FromHours(hours));
+        var link = new StoredShareLink("sl_" + ReportIds.New(), ShareLinkSigning.Hash(token), tenant, id, now, now + TimeSpan.FromHours(hours));
         if (!await links.CreateAsync(link, cancellationToken))
-            return NotFound(id);
-        var url = $"{request.Scheme}://{request.Host}{SharedReportViews.PagePath(token)}";
-        return TypedResults.Created(url, new ShareLinkCreated(link.Id, url, link.ExpiresAt));
+            return null;
+        return new ShareLinkCreated(link.Id, $"{request.Scheme}://{request.Host}{SharedReportViews.PagePath(token)}", link.ExpiresAt);
     }
 
     internal static async Task<IResult> DeleteAsync(string id, string linkId, ITenantContext tenant, IShareLinkStore links, CancellationToken cancellationToken) =>
