@@ -321,6 +321,38 @@ public sealed class AttributeGroupTests(ServiceHost host) : IClassFixture<Servic
     }
 
     [Fact]
+    public async Task Exports_carry_each_fixs_attributes()
+    {
+        var report = await Create(Request());
+        var id = report.GetProperty("id").GetString();
+        var residuals = report.GetProperty("residuals").EnumerateArray().ToList();
+        string? Text(JsonElement r, string name) => r.TryGetProperty(name, out var v) ? v.GetString() : null;
+
+        // CSV (RFC 4180): the three attribute columns after the standard ones, row by row as in the report's residuals.
+        var lines = (await client.GetStringAsync($"/v1/assessments/{id}/residuals.csv")).Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
+        Assert.EndsWith(",featureClass,crew,receiver", lines[0]);
+        Assert.Equal(residuals.Count + 1, lines.Length);
+        for (var i = 0; i < residuals.Count; i++)
+        {
+            var cells = lines[i + 1].Split(',');
+            Assert.Equal(Text(residuals[i], "featureClass") ?? "", cells[^3]);
+            Assert.Equal(Text(residuals[i], "crew") ?? "", cells[^2]);
+            Assert.Equal(Text(residuals[i], "receiver") ?? "", cells[^1]);
+        }
+
+        // GeoJSON (RFC 7946): the same values as feature properties.
+        var features = JsonDocument.Parse(await client.GetStringAsync($"/v1/assessments/{id}/residuals.geojson")).RootElement.GetProperty("features").EnumerateArray().ToList();
+        Assert.Equal(residuals.Count, features.Count);
+        for (var i = 0; i < residuals.Count; i++)
+        {
+            var properties = features[i].GetProperty("properties");
+            Assert.Equal(Text(residuals[i], "featureClass"), Text(properties, "featureClass"));
+            Assert.Equal(Text(residuals[i], "receiver"), Text(properties, "receiver"));
+        }
+        Assert.Contains(residuals, r => Text(r, "featureClass") is not null);
+    }
+
+    [Fact]
     public async Task Screening_takes_inline_calibration_entries()
     {
         var response = await Screen("""

@@ -6,7 +6,8 @@ namespace QaService.Core.Reporting.Exports;
 
 /// <summary>
 /// The residual vectors as an RFC 7946 FeatureCollection: one Point per pair at its mark, coordinates
-/// [longitude, latitude] in WGS 84 degrees (RFC 7946 §3.1.1, §4); residual components in metres and flags as properties.
+/// [longitude, latitude] in WGS 84 degrees (RFC 7946 §3.1.1, §4); residual components in metres, flags and the fix's
+/// featureClass/crew/receiver (when given) as properties.
 /// </summary>
 public static class ResidualGeoJson
 {
@@ -54,6 +55,13 @@ public static class ResidualGeoJson
                 foreach (var flag in flags[i])
                     json.WriteStringValue(flag);
                 json.WriteEndArray();
+                // The fix's name attributes, only when given (as in the report's residuals).
+                if (r.FeatureClass is { } featureClass)
+                    json.WriteString("featureClass", featureClass);
+                if (r.Crew is { } crew)
+                    json.WriteString("crew", crew);
+                if (r.Receiver is { } receiver)
+                    json.WriteString("receiver", receiver);
                 json.WriteEndObject();
                 json.WriteEndObject();
             }
