@@ -93,6 +93,17 @@ public sealed class NationalDatumTests(ServiceHost host) : IClassFixture<Service
     }
 
     [Fact]
+    public async Task Geographic_to_projected_warns_from_the_input_positions_not_the_output_grid_values()
+    {
+        // EPSG:32633's area of use is 12..18 E, 0..84 N (EPSG extent via PROJ 9.1.1 proj.db): the first point lies inside every
+        // area, the second (25 E) outside the zone only. The warnings must judge the input lat/lon, not the eastings the batch wrote.
+        var body = await TransformAsync("""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ { "lat": 50, "lon": 15, "h": 100 }, { "lat": 45, "lon": 25 } ] }""");
+        var warning = Assert.Single(body.GetProperty("warnings").EnumerateArray());
+        Assert.Contains("EPSG:32633", warning.GetProperty("message").GetString()!, StringComparison.Ordinal);
+        Assert.Equal([1], warning.GetProperty("points").EnumerateArray().Select(p => p.GetInt32()));
+    }
+
+    [Fact]
     public async Task Assessment_with_gauss_kruger_marks_and_wgs84_fixes_joins_them_through_the_grid()
     {
         var marks = new JsonArray(GaussKruger.Select((p, i) => (JsonNode)new JsonObject { ["id"] = $"GK{i}", ["e"] = p.E, ["n"] = p.N }).ToArray());

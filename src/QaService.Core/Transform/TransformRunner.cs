@@ -54,6 +54,9 @@ public static class TransformRunner
         }
 
         var operation = plan.Operation;
+        // Before the batch runs: for a geographic source the latitudes are the buffer's own first column, which the
+        // batch overwrites with the output (a point at 50 N 15 E was once reported outside EPSG:4326's World).
+        var warnings = operation.OutsideAreas(latitudes, longitudes);
         operation.Execute(buffer);
         for (var i = 0; i < buffer.Count; i++)
         {
@@ -66,7 +69,7 @@ public static class TransformRunner
         var epochNote = request.Epoch is { } t ? InvariantText.Format($"{t} (request epoch)") : null;
         return new TransformOutcome(new TransformResult(source, target, buffer, hasHeight, operation.Describe(epochNote), operation.AccuracyUnknown ? null : operation.AccuracyMetres)
         {
-            Warnings = operation.OutsideAreas(latitudes, longitudes),
+            Warnings = warnings,
         }, []);
     }
 
