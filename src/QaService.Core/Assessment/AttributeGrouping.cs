@@ -24,8 +24,7 @@ public static class AttributeGrouping
 
     internal static IReadOnlyList<AttributeGroups>? Compute(ValidatedAssessment input, ResidualColumns columns)
     {
-        var rows = columns.Rows;
-        var n = rows.Count;
+        var n = columns.Rows.Count;
         var attributeCount = FixAttributes.GroupingNames.Count;
         // Group of every row per attribute (−1: no value); values in order of first appearance.
         int[][]? groupOf = null;
@@ -38,7 +37,7 @@ public static class AttributeGrouping
         }
         for (var i = 0; i < n; i++)
         {
-            if (rows[i].Attributes is not { } attributes)
+            if (columns.AttributesOf(i) is not { } attributes)
                 continue;
             for (var a = 0; a < attributeCount; a++)
             {
@@ -183,7 +182,7 @@ public static class AttributeGrouping
         var seen = new HashSet<string>(StringComparer.Ordinal);
         foreach (var row in members)
         {
-            var markId = columns.Rows[row].Mark;
+            var markId = columns.MarkIdOf(row);
             if (seen.Add(markId) && marksById.TryGetValue(markId, out var mark))
                 marks.Add(mark);
         }

@@ -24,19 +24,33 @@ public static class MarkPairing
     /// </summary>
     public static (IReadOnlyList<MarkFixPair> Pairs, int Unpaired) Pair(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
     {
-        var (pairs, _, unpaired) = PairWithRows(assessment, markGeocentric);
-        return (pairs, unpaired);
+        var rows = PairByRows(assessment, markGeocentric);
+        var pairs = new List<MarkFixPair>(rows.MarkRows.Length);
+        for (var i = 0; i < rows.MarkRows.Length; i++)
+        {
+            var (mark, fix) = (assessment.Marks[rows.MarkRows[i]], assessment.Fixes[rows.FixRows[i]]);
+            pairs.Add(rows.ByProximity is { } near && near[i]
+                ? new MarkFixPair(mark, fix, ByProximity, rows.AmbiguousByPair.GetValueOrDefault(i))
+                : new MarkFixPair(mark, fix, ById));
+        }
+        return (pairs, rows.Unpaired);
     }
 
-    /// <summary>As <see cref="Pair"/>, with the row in <c>Marks</c> of each pair's mark (so no caller looks the id up again).</summary>
-    internal static (List<MarkFixPair> Pairs, int[] MarkRows, int Unpaired) PairWithRows(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
+    /// <summary>
+    /// The pairs as rows (no object per pair): for pair i, the row of its mark in <c>Marks</c> and of its fix in <c>Fixes</c>,
+    /// in fix order.
+    /// </summary>
+    /// <param name="ByProximity">True where pair i was made by proximity; null when every pair was made by id.</param>
+    /// <param name="AmbiguousByPair">Proximity pairs with other marks within the radius: pair index → those marks' ids.</param>
+    internal sealed record PairRows(int[] MarkRows, int[] FixRows, bool[]? ByProximity, IReadOnlyDictionary<int, List<string>> AmbiguousByPair, int Unpaired);
+
+    internal static PairRows PairByRows(ValidatedAssessment assessment, IReadOnlyList<GeocentricCoordinate> markGeocentric)
     {
         var marksById = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < assessment.Marks.Count; i++)
             marksById[assessment.Marks[i].Id] = i;
 
         var fixes = assessment.Fixes;
-        var pairs = new List<MarkFixPair>(fixes.Count);
         // Each fix's mark is found side by side (reads only, one slot per fix): a named mark's row, a nearby mark's row
         // coded as NearbyCode(row), or Unpaired. The pairs are then made in fix order, each fix's row moved down to its
         // pair's slot (never above the fix's own index, so nothing is overwritten early).
@@ -62,25 +76,32 @@ public static class MarkPairing
                     ambiguous[i] = others;
             }
         });
-        var unpaired = 0;
+        var fixRows = new int[fixes.Count];
+        bool[]? byProximity = null;
+        var ambiguousByPair = new Dictionary<int, List<string>>();
+        var count = 0;
         for (var f = 0; f < fixes.Count; f++)
         {
             var code = markRows[f];
             if (code == Unpaired)
-            {
-                unpaired++;
                 continue;
+            if (code < 0)
+            {
+                (byProximity ??= new bool[fixes.Count])[count] = true;
+                if (ambiguous.TryGetValue(f, out var others))
+                    ambiguousByPair[count] = others;
             }
-            var byId = code >= 0;
-            var row = byId ? code : NearbyCode(code);
-            markRows[pairs.Count] = row;
-            pairs.Add(byId
-                ? new MarkFixPair(assessment.Marks[row], fixes[f], ById)
-                : new MarkFixPair(assessment.Marks[row], fixes[f], ByProximity, ambiguous.GetValueOrDefault(f)));
+            markRows[count] = code >= 0 ? code : NearbyCode(code);
+            fixRows[count++] = f;
         }
-        if (pairs.Count < markRows.Length)
-            Array.Resize(ref markRows, pairs.Count);
-        return (pairs, markRows, unpaired);
+        if (count < fixes.Count)
+        {
+            Array.Resize(ref markRows, count);
+            Array.Resize(ref fixRows, count);
+            if (byProximity is not null)
+                Array.Resize(ref byProximity, count);
+        }
+        return new PairRows(markRows, fixRows, byProximity, ambiguousByPair, fixes.Count - count);
     }
 
     /// <summary>Slot value of a fix that pairs with no mark.</summary>

@@ -6,8 +6,8 @@ namespace QaService.Core.Assessment;
 /// <summary>
 /// The residuals that count, as plain arrays taken once per assessment: the statistics, the checks and the report
 /// blocks read these spans instead of each projecting the residual list again (every projection of a 400,000-residual
-/// list cost a few milliseconds). The values are copied unchanged and in residual order, so every sum sees the same
-/// numbers in the same order as before. Shared results (the tested marks, Hotelling's test of the mean) are computed
+/// list cost a few milliseconds). A <see cref="ResidualTable"/>'s own arrays are shared, any other list's values are
+/// copied unchanged, in residual order either way, so every sum sees the same numbers in the same order. Shared results (the tested marks, Hotelling's test of the mean) are computed
 /// once, on first use, safely from any thread.
 /// </summary>
 internal sealed class ResidualColumns
@@ -19,31 +19,74 @@ internal sealed class ResidualColumns
     {
         Rows = rows;
         Groups = groups;
+        if (rows is ResidualTable table && !table.HasExclusions)
+            (East, North, Radial, Up, UpRows) = ShareColumns(table);
+        else
+            (East, North, Radial, Up, UpRows) = CopyColumns(rows);
+        testedMarks = new(() => Assessment.TestedMarks.Of(marks, groups));
+        meanOffsetTest = new(() => rows.Count >= 3 ? HotellingTest.AgainstZero(East, North, Diagnosis.BiasCheck.SignificanceLevel) : null);
+    }
+
+    /// <summary>A table's own arrays (read only here, never written), dU compacted only when some residual has none.</summary>
+    private static (double[], double[], double[], double[], int[]) ShareColumns(ResidualTable table)
+    {
+        var withHeight = 0;
+        foreach (var up in table.Up)
+            withHeight += double.IsNaN(up) ? 0 : 1;
+        if (withHeight == table.Count)
+            return (table.East, table.North, table.Horizontal, table.Up, Enumerable.Range(0, withHeight).ToArray());
+        var (compactUp, upRows) = (new double[withHeight], new int[withHeight]);
+        for (int i = 0, j = 0; i < table.Count; i++)
+        {
+            if (!double.IsNaN(table.Up[i]))
+            {
+                compactUp[j] = table.Up[i];
+                upRows[j++] = i;
+            }
+        }
+        return (table.East, table.North, table.Horizontal, compactUp, upRows);
+    }
+
+    private static (double[], double[], double[], double[], int[]) CopyColumns(IReadOnlyList<Residual> rows)
+    {
         var n = rows.Count;
-        East = new double[n];
-        North = new double[n];
-        Radial = new double[n];
+        double[] east = new double[n], north = new double[n], radial = new double[n];
         var withHeight = 0;
         for (var i = 0; i < n; i++)
         {
             var r = rows[i];
-            East[i] = r.DE;
-            North[i] = r.DN;
-            Radial[i] = r.DH;
+            east[i] = r.DE;
+            north[i] = r.DN;
+            radial[i] = r.DH;
             withHeight += r.DU is null ? 0 : 1;
         }
-        Up = new double[withHeight];
-        UpRows = new int[withHeight];
+        var (up, upRows) = (new double[withHeight], new int[withHeight]);
         for (int i = 0, j = 0; i < n; i++)
         {
-            if (rows[i].DU is { } up)
+            if (rows[i].DU is { } value)
             {
-                Up[j] = up;
-                UpRows[j++] = i;
+                up[j] = value;
+                upRows[j++] = i;
             }
         }
-        testedMarks = new(() => Assessment.TestedMarks.Of(marks, groups));
-        meanOffsetTest = new(() => rows.Count >= 3 ? HotellingTest.AgainstZero(East, North, Diagnosis.BiasCheck.SignificanceLevel) : null);
+        return (east, north, radial, up, upRows);
+    }
+
+    /// <summary>The attributes of residual <paramref name="row"/>'s fix, read from the table when there is one (no residual object made).</summary>
+    public FixAttributes? AttributesOf(int row) => Rows is ResidualTable table ? table.Attributes(row) : Rows[row].Attributes;
+
+    /// <summary>The mark id of residual <paramref name="row"/>.</summary>
+    public string MarkIdOf(int row) => Rows is ResidualTable table ? table.MarkId(row) : Rows[row].Mark;
+
+    /// <summary>The latitude and longitude of residual <paramref name="row"/>'s mark, degrees (the residual's markLatitude/markLongitude).</summary>
+    public (double Latitude, double Longitude) MarkLatLonOf(int row)
+    {
+        if (Rows is ResidualTable table)
+        {
+            var g = table.MarkPosition(row);
+            return (g.LatitudeDegrees, g.LongitudeDegrees);
+        }
+        return (Rows[row].MarkLatitude, Rows[row].MarkLongitude);
     }
 
     /// <summary>The residuals, in the order of every column.</summary>

@@ -17,16 +17,21 @@ public static class ResidualComputation
     /// <summary>The residual of <paramref name="pair"/> in the mark's frame, built once per mark by the caller (many fixes share a mark).</summary>
     public static Residual Compute(MarkFixPair pair, in TopocentricFrame markFrame, Ellipsoid ellipsoid, string? exclusionReason)
     {
-        var mark = pair.Mark;
-        var fix = pair.Fix;
-        var hasVertical = mark.HasHeight && fix.HasHeight;
+        var (mark, fix) = (pair.Mark, pair.Fix);
+        var enu = Components(mark, fix, markFrame, ellipsoid);
+        var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
+        return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, double.IsNaN(enu.UpMetres) ? null : enu.UpMetres, horizontal,
+            pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees) { Attributes = fix.Attributes };
+    }
 
+    /// <summary>dE, dN, dU of fix − mark in the mark's frame, metres; dU is NaN when either side has no height.</summary>
+    internal static EnuVector Components(FramedPoint mark, FramedPoint fix, in TopocentricFrame markFrame, Ellipsoid ellipsoid)
+    {
+        var hasVertical = mark.HasHeight && fix.HasHeight;
         // Without both heights, take the fix at the mark's height: a height difference would otherwise
         // leak into the horizontal components through the tilt between the two ellipsoid normals.
         var fixGeodetic = hasVertical ? fix.Geodetic : fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
         var enu = markFrame.Difference(GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
-        var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
-        return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, hasVertical ? enu.UpMetres : null, horizontal,
-            pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees) { Attributes = fix.Attributes };
+        return hasVertical ? enu : enu with { UpMetres = double.NaN };
     }
 }

@@ -97,10 +97,10 @@ public sealed class HeightReferenceCheck : IDataCheck
         var sum = -0.0;
         foreach (var row in columns.UpRows)
         {
-            var r = columns.Rows[row];
+            var (latitude, longitude) = columns.MarkLatLonOf(row);
             ref var atMark = ref read[groups.GroupOf[row]];
-            if (atMark is not { } m || m.Latitude != r.MarkLatitude || m.Longitude != r.MarkLongitude)
-                atMark = (r.MarkLatitude, r.MarkLongitude, Egm96.Grid.UndulationMetres(r.MarkLatitude, r.MarkLongitude));
+            if (atMark is not { } m || m.Latitude != latitude || m.Longitude != longitude)
+                atMark = (latitude, longitude, Egm96.Grid.UndulationMetres(latitude, longitude));
             sum += atMark.Value.Undulation;
         }
         return sum / columns.UpRows.Length;

@@ -60,10 +60,12 @@ public static class ReportJsonStream
     private static void Render(IReadOnlyList<Residual> residuals, int batch, ArrayBufferWriter<byte> buffer)
     {
         var cache = new EncodedStringCache();
+        var table = residuals as Assessment.ResidualTable;
         var end = Math.Min(residuals.Count, (batch + 1) * BatchResiduals);
         for (var i = batch * BatchResiduals; i < end; i++)
         {
-            var residual = residuals[i];
+            // From the table's columns when the report was just computed (no residual object made), else from the objects.
+            var residual = table is not null ? ResidualFields.Of(table, i) : ResidualFields.Of(residuals[i]);
             var span = buffer.GetSpan(ResidualJsonBytes.MaximumLength(residual) + 1);
             var written = 0;
             if (i > 0)

@@ -28,12 +28,12 @@ internal static class ResidualJsonBytes
     private const int MaximumBytesPerChar = 6;
 
     /// <summary>An upper bound of the bytes <see cref="Write"/> needs for <paramref name="residual"/>.</summary>
-    public static int MaximumLength(Residual residual) =>
+    public static int MaximumLength(in ResidualFields residual) =>
         FixedPartBytes + MaximumBytesPerChar * (residual.Mark.Length + residual.Fix.Length + residual.PairedBy.Length + (residual.Excluded?.Length ?? 0) + 8
             + (residual.Attributes is { } a ? (a.FeatureClass?.Length ?? 0) + (a.Crew?.Length ?? 0) + (a.Receiver?.Length ?? 0) + (a.Quality?.Length ?? 0) : 0));
 
     /// <summary>Writes one residual object; the destination holds at least <see cref="MaximumLength"/> bytes. Returns bytes written.</summary>
-    public static int Write(Residual residual, Span<byte> destination, ref EncodedStringCache cache)
+    public static int Write(in ResidualFields residual, Span<byte> destination, ref EncodedStringCache cache)
     {
         var at = 0;
         Append(MarkPrefix, destination, ref at);
@@ -158,5 +158,23 @@ internal struct EncodedStringCache
             last = text;
         }
         return lastEncoded;
+    }
+}
+
+/// <summary>
+/// One residual's values as the writer reads them, from a <see cref="Residual"/> object or straight from a row of an
+/// <see cref="Assessment.ResidualTable"/> (a value on the stack: no object per residual).
+/// </summary>
+internal readonly record struct ResidualFields(string Mark, string Fix, double DE, double DN, double? DU, double DH, string PairedBy, string? Excluded,
+    double MarkLatitude, double MarkLongitude, Assessment.FixAttributes? Attributes)
+{
+    public static ResidualFields Of(Residual r) =>
+        new(r.Mark, r.Fix, r.DE, r.DN, r.DU, r.DH, r.PairedBy, r.Excluded, r.MarkLatitude, r.MarkLongitude, r.Attributes);
+
+    public static ResidualFields Of(Assessment.ResidualTable table, int row)
+    {
+        var mark = table.MarkPosition(row);
+        return new(table.MarkId(row), table.FixId(row), table.East[row], table.North[row], table.UpOrNull(row), table.Horizontal[row],
+            table.PairedBy(row), table.ExclusionReason(row), mark.LatitudeDegrees, mark.LongitudeDegrees, table.Attributes(row));
     }
 }

@@ -22,11 +22,12 @@ public sealed class ResidualJsonConverter : JsonConverter<Residual>
     /// <summary>Renders through <see cref="ResidualJsonBytes"/>, the one definition of a residual's JSON, as a raw value.</summary>
     public override void Write(Utf8JsonWriter writer, Residual value, JsonSerializerOptions options)
     {
-        var buffer = ArrayPool<byte>.Shared.Rent(ResidualJsonBytes.MaximumLength(value));
+        var fields = ResidualFields.Of(value);
+        var buffer = ArrayPool<byte>.Shared.Rent(ResidualJsonBytes.MaximumLength(fields));
         try
         {
             var cache = new EncodedStringCache();
-            var length = ResidualJsonBytes.Write(value, buffer, ref cache);
+            var length = ResidualJsonBytes.Write(fields, buffer, ref cache);
             writer.WriteRawValue(buffer.AsSpan(0, length), skipInputValidation: true);
         }
         finally

@@ -82,9 +82,11 @@ public sealed class MarkPairingTests
         var markXyz = input.Marks.Select(m => GeocentricConversion.ToGeocentric(m.Geodetic, input.MarksFrame.Crs.Ellipsoid)).ToArray();
         var actual = MarkPairing.Pair(input, markXyz);
         AssertSame(Reference(input), actual);
-        // The rows handed to the residual stage name each pair's mark.
-        var (pairs, rows, _) = MarkPairing.PairWithRows(input, markXyz);
-        Assert.Equal(pairs.Select(p => p.Mark), rows.Select(r => input.Marks[r]));
+        // The rows handed to the residual stage name each pair's mark and fix, in the reference's order.
+        var rows = MarkPairing.PairByRows(input, markXyz);
+        var reference = Reference(input);
+        Assert.Equal(reference.Pairs.Select(p => p.Mark), rows.MarkRows.Select(r => input.Marks[r]));
+        Assert.Equal(reference.Pairs.Select(p => p.Fix), rows.FixRows.Select(r => input.Fixes[r]));
     }
 
     [Theory]
