@@ -27,28 +27,27 @@ public static class FrameAlignment
 
     /// <summary>
     /// Plans the alignment; null with a message when no operation joins the two frames (<c>ProblemIsOperationCode</c> when the
-    /// fixes' operationCode is at fault). A <see cref="List{T}"/> of fixes is updated in place.
+    /// fixes' operationCode is at fault). The fixes' table is updated in place (a 1,000,000-fix upload is neither held twice nor copied).
     /// </summary>
     public static (Aligned? Result, string? Problem, bool ProblemIsOperationCode) Align(PointSetFrame marksFrame, PointSetFrame fixesFrame,
-        IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixes)
+        IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixList)
     {
+        var fixes = FixTable.Of(fixList);
         var markGeoid = marksFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(marksFrame.Geoid) : null;
         var fixGeoid = fixesFrame.Heights == HeightReference.Orthometric ? GeoidModel.Find(fixesFrame.Geoid) : null;
-        var fixLatitudes = new double[fixes.Count];
-        var fixLongitudes = new double[fixes.Count];
-        for (var i = 0; i < fixes.Count; i++)
-            (fixLatitudes[i], fixLongitudes[i]) = (fixes[i].Geodetic.LatitudeDegrees, fixes[i].Geodetic.LongitudeDegrees);
         var plan = CoordinateOperationPlanner.Plan(AsGeographic(fixesFrame.Crs), AsGeographic(marksFrame.Crs), fixGeoid, null, null,
-            AreaOfUse.Around(fixLatitudes, fixLongitudes), fixesFrame.OperationCode);
+            AreaOfUse.Around(fixes.Latitudes, fixes.Longitudes), fixesFrame.OperationCode);
         if (plan.Operation is null)
             return (null, plan.Problem, plan.ProblemIsOperationCode);
         var operation = plan.Operation;
-        var areaWarnings = AreaWarnings(operation, marksFrame, marks, fixes, fixLatitudes, fixLongitudes);
+        // Judged on the fixes as given, before the batch moves them.
+        var areaWarnings = AreaWarnings(operation, marksFrame, marks, fixes);
 
         var alignedMarks = markGeoid is null ? marks : marks.Select(m => ToEllipsoidal(m, markGeoid)).ToList();
 
         // No step and no geoid leave every fix as it is: the batch round trip would copy each coordinate back unchanged.
-        var alignedFixes = operation.Steps.Count == 0 && fixGeoid is null ? fixes : Transform(operation, fixesFrame, fixes, fixGeoid);
+        if (operation.Steps.Count > 0 || fixGeoid is not null)
+            Transform(operation, fixesFrame, fixes, fixGeoid);
 
         var text = new List<string> { operation.Steps.Count == 0 ? "fixes are in the marks' frame: no transformation" : "fixes: " + operation.Describe(EpochNote(fixesFrame, fixes)) };
         if (markGeoid is not null)
@@ -59,26 +58,26 @@ public static class FrameAlignment
             alignedMarks = moved;
             text.Add(note);
         }
-        return (new Aligned(alignedMarks, alignedFixes, string.Join("; ", text)) { AreaWarnings = areaWarnings }, null, false);
+        return (new Aligned(alignedMarks, fixes, string.Join("; ", text)) { AreaWarnings = areaWarnings }, null, false);
     }
 
     /// <summary>A frame whose coordinates change with time: a dynamic datum (EPSG frame reference epoch) or the WGS 84 ensemble.</summary>
     private static bool IsDynamic(GeodeticDatum datum) => datum.FrameReferenceEpochYear is not null || datum.Code == GeodeticDatum.Wgs84Ensemble.Code;
 
     /// <summary>The fixes' epoch: theirs when stated, else the mean of their times (a campaign spans days: under 0.1 mm of plate motion per day).</summary>
-    private static double? FixesEpoch(PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes)
+    private static double? FixesEpoch(PointSetFrame fixesFrame, FixTable fixes)
     {
         if (fixesFrame.EpochDecimalYear is { } epoch)
             return epoch;
-        var times = fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).ToList();
+        var times = TimesAsDecimalYears(fixes);
         return times.Count == 0 ? null : times.Average();
     }
 
     private static IReadOnlyList<SideAreaWarning> AreaWarnings(CoordinateOperation operation, PointSetFrame marksFrame, IReadOnlyList<FramedPoint> marks,
-        IReadOnlyList<FramedPoint> fixes, double[] fixLatitudes, double[] fixLongitudes)
+        FixTable fixes)
     {
-        var result = operation.OutsideAreas(fixLatitudes, fixLongitudes)
-            .Select(w => new SideAreaWarning("fixes", w.Message, w.PointIndexes.Select(i => fixes[i].Id).ToList())).ToList();
+        var result = operation.OutsideAreas(fixes.Latitudes, fixes.Longitudes)
+            .Select(w => new SideAreaWarning("fixes", w.Message, w.PointIndexes.Select(fixes.Id).ToList())).ToList();
         if (marksFrame.Crs.AreaOfUse is { } area)
         {
             var outside = marks.Where(m => area.DegreesOutside(m.Geodetic.LatitudeDegrees, m.Geodetic.LongitudeDegrees) > 0).Select(m => m.Id).ToList();
@@ -88,28 +87,39 @@ public static class FrameAlignment
         return result;
     }
 
-    /// <summary>Runs the fixes through the operation as one batch; a fix without height keeps the geoid-free height it had.</summary>
-    private static IReadOnlyList<FramedPoint> Transform(CoordinateOperation operation, PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes, GeoidModel? fixGeoid)
+    /// <summary>Runs the fixes through the operation as one batch and writes them back in place; a fix without height keeps the geoid-free height it had.</summary>
+    private static void Transform(CoordinateOperation operation, PointSetFrame fixesFrame, FixTable fixes, GeoidModel? fixGeoid)
     {
         var buffer = new CoordinateBuffer(fixes.Count, withEpochs: true);
         for (var i = 0; i < fixes.Count; i++)
         {
-            var g = fixes[i].Geodetic;
+            var g = fixes.Geodetic(i);
             buffer.First[i] = g.LatitudeDegrees;
             buffer.Second[i] = g.LongitudeDegrees;
             buffer.Third[i] = g.EllipsoidalHeightMetres;
-            buffer.EpochYears![i] = fixesFrame.EpochDecimalYear ?? (fixes[i].Time is { } t ? DecimalYear.From(t) : double.NaN);
+            buffer.EpochYears![i] = fixesFrame.EpochDecimalYear ?? (fixes.Time(i) is { } t ? DecimalYear.From(t) : double.NaN);
         }
         operation.Execute(buffer);
-        // A caller's own list has its points moved in place, so the fixes are neither held twice nor copied (a 1,000,000-fix upload: ~120 MB).
-        var alignedFixes = fixes as List<FramedPoint> ?? fixes.Select(f => f with { }).ToList();
-        for (var i = 0; i < alignedFixes.Count; i++)
+        for (var i = 0; i < fixes.Count; i++)
         {
             // A fix without height keeps the geoid-free 0 it was given (api-v1: 0 on the ellipsoid); its height is never compared.
-            var height = alignedFixes[i].HasHeight || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
-            alignedFixes[i].Geodetic = new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height);
+            var height = fixes.HasHeight(i) || fixGeoid is null ? buffer.Third[i] : buffer.Third[i] - fixGeoid.Grid.UndulationMetres(buffer.First[i], buffer.Second[i]);
+            fixes.SetGeodetic(i, new GeodeticCoordinate(buffer.First[i], buffer.Second[i], height));
         }
-        return alignedFixes;
+    }
+
+    /// <summary>The fixes' times as decimal years, in fix order (empty when none has a time).</summary>
+    internal static List<double> TimesAsDecimalYears(FixTable fixes)
+    {
+        var years = new List<double>();
+        if (!fixes.AnyTime)
+            return years;
+        for (var i = 0; i < fixes.Count; i++)
+        {
+            if (fixes.Time(i) is { } t)
+                years.Add(DecimalYear.From(t));
+        }
+        return years;
     }
 
     /// <summary>The geographic form of a CRS, after <see cref="PointConversion"/> has already undone projection and unit.</summary>
@@ -126,11 +136,11 @@ public static class FrameAlignment
         return mark with { Geodetic = g with { EllipsoidalHeightMetres = g.EllipsoidalHeightMetres + geoid.Grid.UndulationMetres(g.LatitudeDegrees, g.LongitudeDegrees) } };
     }
 
-    private static string? EpochNote(PointSetFrame fixesFrame, IReadOnlyList<FramedPoint> fixes)
+    private static string? EpochNote(PointSetFrame fixesFrame, FixTable fixes)
     {
         if (fixesFrame.EpochDecimalYear is { } epoch)
             return InvariantText.Format($"{epoch} (fixes' epoch)");
-        var times = fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).ToList();
+        var times = TimesAsDecimalYears(fixes);
         if (times.Count == 0)
             return null;
         var missing = fixes.Count - times.Count;

@@ -108,9 +108,12 @@ internal sealed class MarkNeighbourhood
     /// </summary>
     /// <param name="fix">The fix, in the marks' geodetic frame.</param>
     /// <param name="candidates">Scratch list owned by the calling thread.</param>
-    public (int Nearest, List<string>? Others) Nearest(FramedPoint fix, List<int> candidates)
+    public (int Nearest, List<string>? Others) Nearest(FramedPoint fix, List<int> candidates) => Nearest(fix.Geodetic, candidates);
+
+    /// <summary>As <see cref="Nearest(FramedPoint, List{int})"/>, for a fix position read from a column.</summary>
+    public (int Nearest, List<string>? Others) Nearest(GeodeticCoordinate fix, List<int> candidates)
     {
-        var fixNormal = UnitNormal.Of(fix.Geodetic);
+        var fixNormal = UnitNormal.Of(fix);
         Candidates(fixNormal, candidates);
         var best = -1;
         var bestDistance = double.PositiveInfinity;
@@ -147,10 +150,10 @@ internal sealed class MarkNeighbourhood
     /// of the Earth (normals less than 90° apart), where the tangent-plane distance grows with the distance on the ground.
     /// </summary>
     /// <param name="distanceMetres">The horizontal distance in metres.</param>
-    private bool WithinRadius(FramedPoint fix, UnitNormal fixNormal, int row, out double distanceMetres)
+    private bool WithinRadius(GeodeticCoordinate fix, UnitNormal fixNormal, int row, out double distanceMetres)
     {
         var mark = marks[row];
-        var fixAtMarkHeight = fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
+        var fixAtMarkHeight = fix with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
         var enu = frames[row].Difference(GeocentricConversion.ToGeocentric(fixAtMarkHeight, ellipsoid));
         distanceMetres = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
         return !(distanceMetres > radiusMetres) && fixNormal.Dot(normals[row]) > 0;

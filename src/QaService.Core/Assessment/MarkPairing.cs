@@ -50,7 +50,7 @@ public static class MarkPairing
         for (var i = 0; i < assessment.Marks.Count; i++)
             marksById[assessment.Marks[i].Id] = i;
 
-        var fixes = assessment.Fixes;
+        var fixes = FixTable.Of(assessment.Fixes);
         // Each fix's mark is found side by side (reads only, one slot per fix): a named mark's row, a nearby mark's row
         // coded as NearbyCode(row), or Unpaired. The pairs are then made in fix order, each fix's row moved down to its
         // pair's slot (never above the fix's own index, so nothing is overwritten early).
@@ -65,12 +65,12 @@ public static class MarkPairing
             var candidates = new List<int>();
             for (var i = start; i < end; i++)
             {
-                if (fixes[i].MarkId is { } markId && marksById.TryGetValue(markId, out var row))
+                if (fixes.MarkId(i) is { } markId && marksById.TryGetValue(markId, out var row))
                 {
                     markRows[i] = row;
                     continue;
                 }
-                var (nearest, others) = nearby?.Nearest(fixes[i], candidates) ?? (-1, null);
+                var (nearest, others) = nearby?.Nearest(fixes.Geodetic(i), candidates) ?? (-1, null);
                 markRows[i] = nearest < 0 ? Unpaired : NearbyCode(nearest);
                 if (others is not null)
                     ambiguous[i] = others;

@@ -18,44 +18,89 @@ internal static class PointSetReading
     /// </summary>
     private const int SlicedFromPoints = 65_536;
 
-    /// <param name="markCheck">For fixes: the mark ids they may name, and where a fix naming another is reported. Null for marks.</param>
-    public static List<FramedPoint> Read(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors, MarkCheck? markCheck = null)
+    /// <summary>Reads the marks (no mark check: they are what the fixes name).</summary>
+    public static List<FramedPoint> ReadMarks(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors)
+    {
+        var target = new MarkSlots(set.Points?.Count ?? 0);
+        ReadInto(set, frame, pointer, errors, null, target);
+        return target.Joined();
+    }
+
+    /// <summary>Reads the fixes into columns.</summary>
+    /// <param name="markCheck">The mark ids the fixes may name, and where a fix naming another is reported.</param>
+    public static FixTable ReadFixes(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors, MarkCheck markCheck)
+    {
+        var target = new FixColumns(set.Points?.Count ?? 0);
+        ReadInto(set, frame, pointer, errors, markCheck, target);
+        return target.Joined();
+    }
+
+    private static void ReadInto(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors, MarkCheck? markCheck, PointTarget target)
     {
         var count = set.Points?.Count ?? 0;
         if (set.Points is null)
-            return [];
+            return;
         var slices = count < SlicedFromPoints ? 1 : Math.Min(Environment.ProcessorCount, count / (SlicedFromPoints / 2));
         if (slices <= 1)
         {
-            var result = new List<FramedPoint>(count);
-            ReadSlice(set.Points, frame, pointer, markCheck, 0, count, result, errors, markCheck?.Unknown);
-            return result;
+            ReadSlice(set.Points, frame, pointer, markCheck, 0, count, target, errors, markCheck?.Unknown);
+            return;
         }
-        var points = new List<FramedPoint>[slices];
         var problems = new List<InputError>[slices];
         var unknownMarks = new List<InputError>[slices];
         Parallel.For(0, slices, slice =>
         {
             var (from, to) = ((int)((long)count * slice / slices), (int)((long)count * (slice + 1) / slices));
-            // The first slice's list takes the whole set, so joining adds the others to it rather than copying all into a third list.
-            points[slice] = new List<FramedPoint>(slice == 0 ? count : to - from);
             problems[slice] = [];
             unknownMarks[slice] = [];
-            ReadSlice(set.Points, frame, pointer, markCheck, from, to, points[slice], problems[slice], unknownMarks[slice]);
+            ReadSlice(set.Points, frame, pointer, markCheck, from, to, target, problems[slice], unknownMarks[slice]);
         });
-        var joined = points[0];
         for (var slice = 0; slice < slices; slice++)
         {
-            if (slice > 0)
-                joined.AddRange(points[slice]);
             errors.AddRange(problems[slice]);
             markCheck?.Unknown.AddRange(unknownMarks[slice]);
         }
-        return joined;
+    }
+
+    /// <summary>Where a read point goes: slot <c>index</c> (its position in the set), written by one thread only.</summary>
+    private abstract class PointTarget
+    {
+        public abstract void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+            DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes);
+    }
+
+    /// <summary>Marks as point objects (a few thousand at most in practice), in set order.</summary>
+    private sealed class MarkSlots(int count) : PointTarget
+    {
+        private readonly FramedPoint?[] slots = new FramedPoint?[count];
+
+        public override void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+            DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes) =>
+            slots[index] = new FramedPoint(index, id, markId, geodetic, hasHeight, sigmaH, sigmaV, time) { VelocityMetresPerYear = velocity, Attributes = attributes };
+
+        public List<FramedPoint> Joined() => slots.OfType<FramedPoint>().ToList();
+    }
+
+    /// <summary>Fixes straight into columns; a point skipped for a problem leaves its row out.</summary>
+    private sealed class FixColumns(int count) : PointTarget
+    {
+        private readonly FixTable table = new(count);
+        private readonly bool[] present = new bool[count];
+
+        public override void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+            DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes)
+        {
+            table.Set(index, index, id, markId, geodetic, hasHeight);
+            table.SetExtras(index, sigmaH, sigmaV, time, attributes);
+            present[index] = true;
+        }
+
+        public FixTable Joined() =>
+            Array.TrueForAll(present, p => p) ? table : table.Take(Enumerable.Range(0, present.Length).Where(i => present[i]).ToList());
     }
 
     private static void ReadSlice(IReadOnlyList<PointRecord?> points, PointSetFrame frame, string pointer, MarkCheck? markCheck, int from, int to,
-        List<FramedPoint> result, List<InputError> errors, List<InputError>? unknownMarks)
+        PointTarget result, List<InputError> errors, List<InputError>? unknownMarks)
     {
         var isMark = markCheck is null;
         var useHeight = frame.Heights != HeightReference.None;
@@ -87,10 +132,10 @@ internal static class PointSetReading
             var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
             var markId = point.Mark?.Trim();
             var velocity = columns is null && points[i] is { } record ? ReadVelocity(record, pointPointer, isMark, errors) : null;
-            result.Add(new FramedPoint(i, id, markId, geodetic.Value, hasHeight,
+            result.Add(i, id, markId, geodetic.Value, hasHeight,
                 point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
                 point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
-                point.Time) { VelocityMetresPerYear = velocity, Attributes = attributes });
+                point.Time, velocity, attributes);
             if (markId is { Length: > 0 } && markCheck is not null && !markCheck.Known.Contains(markId))
                 unknownMarks!.Add(new(Format($"{pointer}/points/{i}/mark"), $"no mark has the id \"{markId}\""));
         }

@@ -95,7 +95,7 @@ public static class ReportFigures
         ParallelWork.ForRanges(rows.Count, (start, end) =>
         {
             for (var i = start; i < end; i++)
-                keptRow[i] = !set.Contains(rows[i].Fix);
+                keptRow[i] = !set.Contains(columns.FixIdOf(i));
         });
         var keptE = new List<double>(rows.Count);
         var keptN = new List<double>(rows.Count);

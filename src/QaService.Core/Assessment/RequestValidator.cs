@@ -51,10 +51,10 @@ public static class RequestValidator
         var occupations = OccupationModes.Read(request.Pairing?.Occupations, optionErrors);
         var requestedExclusions = request.Exclusions;
 
-        var marks = marksFrame is null ? [] : PointSetReading.Read(request.Marks!, marksFrame, "/marks", errors);
+        var marks = marksFrame is null ? [] : PointSetReading.ReadMarks(request.Marks!, marksFrame, "/marks", errors);
         // Each fix's mark is checked as the fix is read; those problems are listed after the marks' duplicate ids.
         var markCheck = new MarkCheck(marks.Select(mark => mark.Id).ToHashSet(StringComparer.Ordinal), []);
-        var fixes = fixesFrame is null ? [] : PointSetReading.Read(request.Fixes!, fixesFrame, "/fixes", errors, markCheck);
+        var fixes = fixesFrame is null ? FixTable.Of([]) : PointSetReading.ReadFixes(request.Fixes!, fixesFrame, "/fixes", errors, markCheck);
         ReportDuplicateMarkIds(marks, errors);
         errors.AddRange(markCheck.Unknown);
         errors.AddRange(optionErrors);
@@ -258,12 +258,14 @@ public static class RequestValidator
         return radius;
     }
 
-    private static Dictionary<string, string> ReadExclusions(IReadOnlyList<Exclusion?>? exclusions, List<FramedPoint> fixes, List<InputError> errors)
+    private static Dictionary<string, string> ReadExclusions(IReadOnlyList<Exclusion?>? exclusions, FixTable fixes, List<InputError> errors)
     {
         var result = new Dictionary<string, string>(StringComparer.Ordinal);
         if (exclusions is null)
             return result;
-        var fixIds = fixes.Select(f => f.Id).ToHashSet(StringComparer.Ordinal);
+        var fixIds = new HashSet<string>(fixes.Count, StringComparer.Ordinal);
+        for (var i = 0; i < fixes.Count; i++)
+            fixIds.Add(fixes.Id(i));
         for (var i = 0; i < exclusions.Count; i++)
         {
             var pointer = Format($"/exclusions/{i}");

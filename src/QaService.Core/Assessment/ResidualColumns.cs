@@ -75,6 +75,9 @@ internal sealed class ResidualColumns
     /// <summary>The attributes of residual <paramref name="row"/>'s fix, read from the table when there is one (no residual object made).</summary>
     public FixAttributes? AttributesOf(int row) => Rows is ResidualTable table ? table.Attributes(row) : Rows[row].Attributes;
 
+    /// <summary>The fix id of residual <paramref name="row"/>.</summary>
+    public string FixIdOf(int row) => Rows is ResidualTable table ? table.FixId(row) : Rows[row].Fix;
+
     /// <summary>The mark id of residual <paramref name="row"/>.</summary>
     public string MarkIdOf(int row) => Rows is ResidualTable table ? table.MarkId(row) : Rows[row].Mark;
 

@@ -18,19 +18,19 @@ public static class ResidualComputation
     public static Residual Compute(MarkFixPair pair, in TopocentricFrame markFrame, Ellipsoid ellipsoid, string? exclusionReason)
     {
         var (mark, fix) = (pair.Mark, pair.Fix);
-        var enu = Components(mark, fix, markFrame, ellipsoid);
+        var enu = Components(mark, fix.Geodetic, fix.HasHeight, markFrame, ellipsoid);
         var horizontal = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
         return new Residual(mark.Id, fix.Id, enu.EastMetres, enu.NorthMetres, double.IsNaN(enu.UpMetres) ? null : enu.UpMetres, horizontal,
             pair.PairedBy, exclusionReason, mark.Geodetic.LatitudeDegrees, mark.Geodetic.LongitudeDegrees) { Attributes = fix.Attributes };
     }
 
     /// <summary>dE, dN, dU of fix − mark in the mark's frame, metres; dU is NaN when either side has no height.</summary>
-    internal static EnuVector Components(FramedPoint mark, FramedPoint fix, in TopocentricFrame markFrame, Ellipsoid ellipsoid)
+    internal static EnuVector Components(FramedPoint mark, GeodeticCoordinate fix, bool fixHasHeight, in TopocentricFrame markFrame, Ellipsoid ellipsoid)
     {
-        var hasVertical = mark.HasHeight && fix.HasHeight;
+        var hasVertical = mark.HasHeight && fixHasHeight;
         // Without both heights, take the fix at the mark's height: a height difference would otherwise
         // leak into the horizontal components through the tilt between the two ellipsoid normals.
-        var fixGeodetic = hasVertical ? fix.Geodetic : fix.Geodetic with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
+        var fixGeodetic = hasVertical ? fix : fix with { EllipsoidalHeightMetres = mark.Geodetic.EllipsoidalHeightMetres };
         var enu = markFrame.Difference(GeocentricConversion.ToGeocentric(fixGeodetic, ellipsoid));
         return hasVertical ? enu : enu with { UpMetres = double.NaN };
     }

@@ -13,9 +13,9 @@ namespace QaService.Core.Assessment;
 public sealed class ResidualTable : IReadOnlyList<Residual>
 {
     private readonly IReadOnlyList<FramedPoint> marks;
-    private readonly IReadOnlyList<FramedPoint> fixes;
+    private readonly FixTable fixes;
 
-    private ResidualTable(IReadOnlyList<FramedPoint> marks, IReadOnlyList<FramedPoint> fixes, int[] markRows, int[] fixRows, double[] east, double[] north,
+    private ResidualTable(IReadOnlyList<FramedPoint> marks, FixTable fixes, int[] markRows, int[] fixRows, double[] east, double[] north,
         double[] up, double[] horizontal, bool[]? byProximity, string?[]? excluded)
     {
         this.marks = marks;
@@ -58,7 +58,7 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
 
     public string MarkId(int row) => marks[MarkRows[row]].Id;
 
-    public string FixId(int row) => fixes[FixRows[row]].Id;
+    public string FixId(int row) => fixes.Id(FixRows[row]);
 
     public string PairedBy(int row) => ByProximity is { } p && p[row] ? MarkPairing.ByProximity : MarkPairing.ById;
 
@@ -68,7 +68,7 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
 
     public GeodeticCoordinate MarkPosition(int row) => marks[MarkRows[row]].Geodetic;
 
-    public FixAttributes? Attributes(int row) => fixes[FixRows[row]].Attributes;
+    public FixAttributes? Attributes(int row) => fixes.Attributes(FixRows[row]);
 
     public Residual this[int index]
     {
@@ -98,7 +98,7 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
     /// </summary>
     internal static ResidualTable Compute(ValidatedAssessment input, MarkPairing.PairRows pairs, GeocentricCoordinate[] markGeocentric, Ellipsoid ellipsoid)
     {
-        var (marks, fixes) = (input.Marks, input.Fixes);
+        var (marks, fixes) = (input.Marks, FixTable.Of(input.Fixes));
         var frames = new TopocentricFrame?[markGeocentric.Length];
         foreach (var row in pairs.MarkRows)
             frames[row] ??= TopocentricFrame.At(markGeocentric[row], marks[row].Geodetic);
@@ -111,12 +111,12 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
         {
             for (var i = start; i < end; i++)
             {
-                var (mark, fix) = (marks[pairs.MarkRows[i]], fixes[pairs.FixRows[i]]);
-                var enu = ResidualComputation.Components(mark, fix, frames[pairs.MarkRows[i]]!.Value, ellipsoid);
+                var (mark, fix) = (marks[pairs.MarkRows[i]], pairs.FixRows[i]);
+                var enu = ResidualComputation.Components(mark, fixes.Geodetic(fix), fixes.HasHeight(fix), frames[pairs.MarkRows[i]]!.Value, ellipsoid);
                 (east[i], north[i], up[i]) = (enu.EastMetres, enu.NorthMetres, enu.UpMetres);
                 horizontal[i] = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
                 if (excluded is not null)
-                    excluded[i] = exclusions.GetValueOrDefault(fix.Id);
+                    excluded[i] = exclusions.GetValueOrDefault(fixes.Id(fix));
             }
         });
         if (excluded is not null && Array.TrueForAll(excluded, reason => reason is null))

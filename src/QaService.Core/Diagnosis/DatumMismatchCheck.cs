@@ -45,7 +45,7 @@ public sealed class DatumMismatchCheck : IDataCheck
         var marks = context.Columns.TestedMarks.Select(m => m.Geodetic).ToList();
         var centroid = new GeodeticCoordinate(marks.Average(g => g.LatitudeDegrees), marks.Average(g => g.LongitudeDegrees), marks.Average(g => g.EllipsoidalHeightMetres));
         var epoch = input.FixesFrame.EpochDecimalYear ?? input.MarksFrame.EpochDecimalYear
-                    ?? input.Fixes.Where(f => f.Time is not null).Select(f => DecimalYear.From(f.Time!.Value)).DefaultIfEmpty(double.NaN).Average();
+                    ?? Assessment.FrameAlignment.TimesAsDecimalYears(Assessment.FixTable.Of(input.Fixes)).DefaultIfEmpty(double.NaN).Average();
         var sd = Math.Sqrt((Variance(context.Columns.East) + Variance(context.Columns.North)) / 2);
         var standardError = sd / Math.Sqrt(included.Count);
 

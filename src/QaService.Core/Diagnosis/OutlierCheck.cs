@@ -43,9 +43,9 @@ public sealed class OutlierCheck : IDataCheck
         double largestE = 0, largestN = 0, largestU = 0;
         var withHeight = columns.Up.Length >= MinimumPoints;
         ParallelWork.Invoke(included.Count >= ParallelWork.MinimumRange,
-            () => largestE = Flag(columns.East, i => included[i].Fix, flaggedE),
-            () => largestN = Flag(columns.North, i => included[i].Fix, flaggedN),
-            () => largestU = withHeight ? Flag(columns.Up, i => included[columns.UpRows[i]].Fix, flaggedU) : 0);
+            () => largestE = Flag(columns.East, columns.FixIdOf, flaggedE),
+            () => largestN = Flag(columns.North, columns.FixIdOf, flaggedN),
+            () => largestU = withHeight ? Flag(columns.Up, i => columns.FixIdOf(columns.UpRows[i]), flaggedU) : 0);
         var flagged = flaggedE;
         flagged.UnionWith(flaggedN);
         flagged.UnionWith(flaggedU);
