@@ -5,7 +5,8 @@ namespace QaService.Api.Storage;
 /// <summary>
 /// The folder beside a SQLite database (<c>&lt;database file&gt;.reports/</c>) where reports above the group-commit size
 /// are kept as plain files, one per row (<c>reports.json_file</c>): SQLite's own advice for large blobs
-/// (https://sqlite.org/intern-v-extern-blob.html), and measured here ~5× faster than incremental BLOB I/O for 71 MB.
+/// (https://sqlite.org/intern-v-extern-blob.html); a 71 MB report took ~450 ms through incremental BLOB I/O, writing and
+/// fsyncing the same bytes to a file ~85 ms.
 /// A file is written once, made durable before its row is inserted, and removed after its row is deleted; a crash
 /// between the two leaves an orphan, removed at the next start.
 /// </summary>
