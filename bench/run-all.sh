@@ -30,7 +30,7 @@ for tool in cs2cs curl python3 /usr/bin/time; do command -v "$tool" >/dev/null |
 dotnet publish src/QaService.Api -c Release -o "$work/app" --nologo -v quiet >/dev/null
 
 start_service() { # start_service NAME: a fresh service and database, peak memory counted from zero
-  rm -f "$work"/bench.db*
+  rm -rf "$work"/bench.db*  # the database, its WAL and its .reports folder
   /usr/bin/time -v -o "$work/time-$1.txt" dotnet "$work/app/QaService.Api.dll" --urls "http://127.0.0.1:$PORT" \
     --Storage:ConnectionString="Data Source=$work/bench.db" --Demo:Enabled=false --Limits:MaxPoints=2000000 \
     --Limits:RateLimitPermits=100000000 --Serilog:MinimumLevel:Default=Warning >"$work/service-$1.log" 2>&1 &

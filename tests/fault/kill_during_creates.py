@@ -8,6 +8,7 @@ running all along, and from the restarted first one). Exits 1 if any acknowledge
 
   dotnet build -c Release src/QaService.Api
   tests/fault/kill_during_creates.py --provider sqlite
+  tests/fault/kill_during_creates.py --provider sqlite --fixes 8000 --threads 4   # large reports: files beside the database
   tests/fault/kill_during_creates.py --provider postgres --connection "Host=127.0.0.1;Port=55432;Database=qaservice;Username=postgres"
 
 Bounded: at most --creates requests and --seconds of burst; loopback only.
@@ -17,14 +18,23 @@ import argparse, json, os, signal, subprocess, sys, tempfile, threading, time, u
 ROOT = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
 DLL = os.path.join(ROOT, "src/QaService.Api/bin/Release/net10.0/QaService.Api.dll")
 
-BODY = json.dumps({
-    "title": "kill test, invented Larkspur Hollow valves",
-    "marks": {"crs": "EPSG:32633", "heights": "ellipsoidal", "points": [
-        {"id": f"M{i}", "e": 500000.0 + 40 * i, "n": 5400000.0 + 25 * (i % 5), "h": 200.0} for i in range(24)]},
-    "fixes": {"crs": "EPSG:32633", "heights": "ellipsoidal", "points": [
-        {"id": f"F{i}", "mark": f"M{i}", "e": 500000.012 + 40 * i, "n": 5400000.0 - 0.008 + 25 * (i % 5), "h": 200.03} for i in range(24)]},
-    "spec": {"standard": "nssda", "horizontal": 0.5, "vertical": 1.0},
-}).encode()
+MARKS = 24
+
+
+def body(fixes):
+    """24 invented valves and `fixes` fixes on them; 24 is small (group commit), ~8,000 makes a report above 1 MiB (a file beside SQLite)."""
+    return json.dumps({
+        "title": "kill test, invented Larkspur Hollow valves",
+        "marks": {"crs": "EPSG:32633", "heights": "ellipsoidal", "points": [
+            {"id": f"M{i}", "e": 500000.0 + 40 * i, "n": 5400000.0 + 25 * (i % 5), "h": 200.0} for i in range(MARKS)]},
+        "fixes": {"crs": "EPSG:32633", "heights": "ellipsoidal", "points": [
+            {"id": f"F{i}", "mark": f"M{i % MARKS}", "e": 500000.012 + 40 * (i % MARKS), "n": 5400000.0 - 0.008 + 25 * (i % MARKS % 5), "h": 200.03}
+            for i in range(fixes)]},
+        "spec": {"standard": "nssda", "horizontal": 0.5, "vertical": 1.0},
+    }).encode()
+
+
+BODY = body(MARKS)
 
 
 def in_use(port):
@@ -83,7 +93,10 @@ def main():
     parser.add_argument("--kill-after", type=float, default=4.0, help="seconds into the burst")
     parser.add_argument("--seconds", type=float, default=20.0, help="longest burst")
     parser.add_argument("--port", type=int, default=58191, help="first of two free loopback ports")
+    parser.add_argument("--fixes", type=int, default=MARKS, help="fixes per request (8000: reports above 1 MiB, kept as files by SQLite)")
     args = parser.parse_args()
+    global BODY
+    BODY = body(args.fixes)
     if not os.path.exists(DLL):
         raise SystemExit(f"{DLL} is missing: run `dotnet build -c Release src/QaService.Api` first")
 

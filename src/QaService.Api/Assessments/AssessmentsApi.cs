@@ -68,7 +68,7 @@ internal static class AssessmentsApi
         await LargeRequestMemory.ReleaseAsync(report!.Counts.Fixes);
         var header = new ReportHeader(tenant.TenantId, report.Id, report.CreatedAt, report.Title, VerdictText(report), projectId);
         var (paired, points) = (report.Counts.Paired, report.Counts.Marks + report.Counts.Fixes);
-        var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
+        var json = await ReportSerialisation.SerialiseAsync(report, store, cancellationToken);
         report = null;
         try
         {
@@ -147,7 +147,7 @@ internal static class AssessmentsApi
         if (outcome.Assessment is null)
             return (null, outcome.Errors, null);
         var report = AssessmentRunner.Run(outcome.Assessment, ReportIds.New(), clock.GetUtcNow()) with { Ingest = ingest };
-        await using (var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken))
+        await using (var json = await ReportSerialisation.SerialiseAsync(report, store, cancellationToken))
             await store.SaveAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
         var verdict = VerdictText(report);
         AssessmentLog.Created(logger, report.Id, verdict, report.Counts.Paired);
@@ -166,7 +166,7 @@ internal static class AssessmentsApi
     /// <summary>Serialises the report and stores it unless the tenant already has that id; true when stored.</summary>
     internal static async Task<bool> StoreIfAbsentAsync(IReportStore store, string tenant, AssessmentReport report, CancellationToken cancellationToken)
     {
-        await using var json = await ReportSerialisation.SerialiseAsync(report, cancellationToken);
+        await using var json = await ReportSerialisation.SerialiseAsync(report, store, cancellationToken);
         return await store.SaveIfAbsentAsync(new ReportHeader(tenant, report.Id, report.CreatedAt, report.Title, VerdictText(report)), json, cancellationToken);
     }
 

@@ -1,27 +1,24 @@
+using QaService.Api.Storage;
 using QaService.Core.Reporting;
 
 namespace QaService.Api.Assessments;
 
 /// <summary>
-/// Serialises a report to UTF-8 once, as a stream: in memory for ordinary reports, to a self-deleting temporary
-/// file for large ones, so a 1,000,000-residual report (~180 MB of JSON) never becomes one string or one array.
+/// Serialises a report to UTF-8 once, as a stream: in memory for ordinary reports, into the store's spool
+/// (<see cref="IReportStore.CreateJsonSpool"/>: a file) for large ones, so a 1,000,000-residual report (~180 MB of JSON)
+/// never becomes one string or one array, and a store that keeps files keeps that one.
 /// </summary>
 internal static class ReportSerialisation
 {
     /// <summary>
-    /// Above this many residuals the JSON goes to a temporary file. About 180 bytes a residual, so in-memory
+    /// Above this many residuals the JSON goes to the store's spool file. About 180 bytes a residual, so in-memory
     /// buffers stay under ~1 MB (measured on the 400,000-fix bench: 71,510,604 bytes, 179 a residual).
     /// </summary>
     private const int InMemoryResidualLimit = 4_096;
 
-    private const int FileBufferBytes = 81_920;
-
-    public static async Task<Stream> SerialiseAsync(AssessmentReport report, CancellationToken cancellationToken)
+    public static async Task<Stream> SerialiseAsync(AssessmentReport report, IReportStore store, CancellationToken cancellationToken)
     {
-        Stream buffer = report.Residuals.Count <= InMemoryResidualLimit
-            ? new MemoryStream()
-            : new FileStream(Path.Combine(Path.GetTempPath(), $"qaservice-report-{Guid.NewGuid():N}.json"), FileMode.CreateNew, FileAccess.ReadWrite,
-                FileShare.None, FileBufferBytes, FileOptions.DeleteOnClose | FileOptions.Asynchronous);
+        var buffer = report.Residuals.Count <= InMemoryResidualLimit ? new MemoryStream() : store.CreateJsonSpool();
         try
         {
             // The residuals go out batch by batch as they are rendered; the rest of the report is small.

@@ -26,6 +26,13 @@ public interface IReportStore
         await SaveAsync(new StoredReport(header.Tenant, header.Id, header.CreatedAt, header.Title, header.Verdict, text, header.ProjectId), cancellationToken);
     }
 
+    /// <summary>
+    /// An empty, readable and writable stream to serialise a large report into (its size is not known up front) before
+    /// <see cref="SaveAsync(ReportHeader, Stream, CancellationToken)"/>; the caller disposes it. A store may keep those very
+    /// bytes without a copy (SQLite renames the file into its report folder). Default: a self-deleting temporary file.
+    /// </summary>
+    Stream CreateJsonSpool() => TemporaryJsonSpool.Create();
+
     /// <summary>The report's JSON, or null when the tenant has no report with that id.</summary>
     Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken);
 

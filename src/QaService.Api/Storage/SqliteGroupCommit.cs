@@ -4,7 +4,7 @@ using Microsoft.Data.Sqlite;
 namespace QaService.Api.Storage;
 
 /// <summary>
-/// Group commit for small reports: one writer takes every insert queued so far and commits them in one transaction, then
+/// Group commit for report rows (small reports, and the rows of reports kept as files): one writer takes every insert queued so far and commits them in one transaction, then
 /// acknowledges each. Every report is still answered only after its COMMIT returned (synchronous = FULL: the WAL is fsynced),
 /// so the durability promise is unchanged; what changes is that concurrent requests share one fsync instead of queueing
 /// for one each (SQLite WAL: a commit costs an fsync, ~1 ms here, and writers are serialised anyway). One failing insert
@@ -18,11 +18,12 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
     private readonly Channel<Pending> queue = Channel.CreateUnbounded<Pending>(new UnboundedChannelOptions { SingleReader = true });
     private int started;
 
-    public Task SaveAsync(ReportHeader header, byte[] json)
+    /// <summary>Queues one row: the JSON itself, or (<paramref name="jsonFile"/>) the name of its already durable file and no JSON.</summary>
+    public Task SaveAsync(ReportHeader header, byte[] json, string? jsonFile = null)
     {
         if (Interlocked.Exchange(ref started, 1) == 0)
             _ = Task.Run(WriteLoopAsync);
-        var pending = new Pending(header, json, new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously));
+        var pending = new Pending(header, json, jsonFile, new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously));
         if (!queue.Writer.TryWrite(pending))
             throw new InvalidOperationException("the report writer has stopped");
         return pending.Done.Task;
@@ -65,7 +66,7 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
             {
                 await using var command = connection.CreateCommand();
                 command.Transaction = transaction;
-                command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT), $project)";
+                command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id, json_file) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT), $project, $file)";
                 var header = batch[i].Header;
                 command.Parameters.AddWithValue("$tenant", header.Tenant);
                 command.Parameters.AddWithValue("$id", header.Id);
@@ -74,6 +75,7 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
                 command.Parameters.AddWithValue("$verdict", header.Verdict);
                 command.Parameters.AddWithValue("$json", batch[i].Json);
                 command.Parameters.AddWithValue("$project", (object?)header.ProjectId ?? DBNull.Value);
+                command.Parameters.AddWithValue("$file", (object?)batch[i].JsonFile ?? DBNull.Value);
                 await command.ExecuteNonQueryAsync();
                 await Execute(connection, transaction, "RELEASE report");
             }
@@ -102,5 +104,5 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
         await command.ExecuteNonQueryAsync();
     }
 
-    private sealed record Pending(ReportHeader Header, byte[] Json, TaskCompletionSource Done);
+    private sealed record Pending(ReportHeader Header, byte[] Json, string? JsonFile, TaskCompletionSource Done);
 }

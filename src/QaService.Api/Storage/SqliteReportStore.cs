@@ -3,12 +3,13 @@ using Microsoft.Extensions.Options;
 
 namespace QaService.Api.Storage;
 
-/// <summary>Reports in one SQLite file (the embedded default). WAL mode lets readers run beside a writer.</summary>
+/// <summary>
+/// Reports in one SQLite file (the embedded default). WAL mode lets readers run beside a writer. Reports above the
+/// group-commit size are files in a folder beside the database (<see cref="SqliteReportFiles"/>), their rows name them.
+/// </summary>
 internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IReportStore
 {
-    private const int CopyBufferBytes = 81_920;
-
-    /// <summary>Reports up to this size go through the group commit; larger ones stream in their own transaction.</summary>
+    /// <summary>Reports up to this size are kept in their row (through the group commit); larger ones as files.</summary>
     private const int GroupCommitMaximumBytes = 1_048_576;
 
     private readonly string connectionString = options.Value.EffectiveConnectionString;
@@ -16,15 +17,25 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     /// <summary>One writer at a time in this process: waiting here is cheaper than SQLite's busy-retry sleeps.</summary>
     private readonly SemaphoreSlim writeLock = new(1, 1);
 
+    private readonly SqliteReportFiles files = new(options.Value.EffectiveConnectionString);
+
     private SqliteGroupCommit? groupCommit;
 
     private readonly SqliteBackgroundCheckpoint checkpoints = new(options.Value.EffectiveConnectionString);
 
+    /// <summary>Migrates, then removes report files no row names (a crash between a file and its row; see <see cref="SqliteReportFiles"/>).</summary>
     public async Task InitializeAsync(CancellationToken cancellationToken)
     {
         SqliteConnections.EnsureFolder(connectionString);
         await using var connection = await OpenAsync(cancellationToken);
         await SqliteSchema.MigrateAsync(connection, cancellationToken);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT json_file FROM reports WHERE json_file IS NOT NULL";
+        var named = new HashSet<string>(StringComparer.Ordinal);
+        await using (var reader = await command.ExecuteReaderAsync(cancellationToken))
+            while (await reader.ReadAsync(cancellationToken))
+                named.Add(reader.GetString(0));
+        files.RemoveOrphans(named);
     }
 
     public async Task SaveAsync(StoredReport report, CancellationToken cancellationToken)
@@ -42,10 +53,14 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         await command.ExecuteNonQueryAsync(cancellationToken);
     }
 
+    /// <summary>A staging file in the report folder: a large report is serialised where it will be kept, never copied.</summary>
+    public Stream CreateJsonSpool() => files.CreateStaged();
+
     /// <summary>
-    /// Streams the JSON into the row: the INSERT reserves <c>zeroblob(length)</c> and the bytes are copied in through
-    /// SQLite's incremental BLOB I/O (sqlite3_blob_open), one transaction, so the report is never one string in memory.
-    /// The column keeps TEXT affinity; such rows hold a BLOB of UTF-8 text, which every reader here accepts.
+    /// Small reports go into their row through the group commit. A larger one is kept as a file: the spool from
+    /// <see cref="CreateJsonSpool"/> is published as it is (any other stream is copied into a staging file first), made
+    /// durable (file and folder fsynced), and only then its row is inserted, so a report is answered only once durable.
+    /// A failed insert (a duplicate id) removes the new file; the stored report keeps its own.
     /// </summary>
     public async Task SaveAsync(ReportHeader header, Stream json, CancellationToken cancellationToken)
     {
@@ -54,81 +69,108 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         {
             var bytes = new byte[length];
             await json.ReadExactlyAsync(bytes, cancellationToken);
-            await LazyInitializer.EnsureInitialized(ref groupCommit, () => new SqliteGroupCommit(OpenAsync, writeLock, checkpoints.Committed)).SaveAsync(header, bytes);
+            await GroupCommit.SaveAsync(header, bytes);
             return;
         }
-        await writeLock.WaitAsync(cancellationToken);
+        var own = json is StagedReportFile staged && staged.Folder == files && json.Position == 0 ? staged : null;
+        await using var copy = own is null ? await CopyToStagingAsync(json, cancellationToken) : null;
+        var file = own ?? copy!;
         try
         {
-            await SaveStreamedAsync(header, json, length, cancellationToken);
+            file.Publish();
+            await GroupCommit.SaveAsync(header, [], file.FileName);
         }
-        finally
+        catch
         {
-            writeLock.Release();
+            files.Delete(file.FileName);
+            throw;
         }
     }
 
-    /// <summary>
-    /// One transaction; the commit does not checkpoint (that would copy the whole report from the WAL into the database
-    /// inside this request, about a third of the store time): the checkpoint runs after, in the background.
-    /// </summary>
-    private async Task SaveStreamedAsync(ReportHeader header, Stream json, long length, CancellationToken cancellationToken)
+    private SqliteGroupCommit GroupCommit => LazyInitializer.EnsureInitialized(ref groupCommit, () => new SqliteGroupCommit(OpenAsync, writeLock, checkpoints.Committed));
+
+    private async Task<StagedReportFile> CopyToStagingAsync(Stream json, CancellationToken cancellationToken)
     {
-        await using var connection = await OpenAsync(cancellationToken);
-        await using var transaction = connection.BeginTransaction(deferred: false);
-        long rowId;
-        await using (var command = connection.CreateCommand())
+        var staged = files.CreateStaged();
+        try
         {
-            command.Transaction = transaction;
-            command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id) VALUES ($tenant, $id, $created, $title, $verdict, zeroblob($length), $project) RETURNING rowid";
-            command.Parameters.AddWithValue("$tenant", header.Tenant);
-            command.Parameters.AddWithValue("$id", header.Id);
-            command.Parameters.AddWithValue("$created", header.CreatedAt.UtcDateTime.ToString("O"));
-            command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
-            command.Parameters.AddWithValue("$verdict", header.Verdict);
-            command.Parameters.AddWithValue("$length", length);
-            command.Parameters.AddWithValue("$project", (object?)header.ProjectId ?? DBNull.Value);
-            rowId = Convert.ToInt64(await command.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture);
+            await json.CopyToAsync(staged, TemporaryJsonSpool.FileBufferBytes, cancellationToken);
+            return staged;
         }
-        await using (var blob = new SqliteBlob(connection, "reports", "json", rowId))
-            await json.CopyToAsync(blob, CopyBufferBytes, cancellationToken);
-        await transaction.CommitAsync(cancellationToken);
-        checkpoints.Committed(length);
+        catch
+        {
+            await staged.DisposeAsync();
+            throw;
+        }
     }
 
     public async Task<string?> FindJsonAsync(string tenant, string id, CancellationToken cancellationToken)
     {
         await using var connection = await OpenAsync(cancellationToken);
         await using var command = connection.CreateCommand();
-        command.CommandText = "SELECT json FROM reports WHERE tenant = $tenant AND id = $id";
+        command.CommandText = "SELECT json, json_file FROM reports WHERE tenant = $tenant AND id = $id";
         command.Parameters.AddWithValue("$tenant", tenant);
         command.Parameters.AddWithValue("$id", id);
         await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+        if (!await reader.ReadAsync(cancellationToken))
+            return null;
         // GetString reads TEXT and BLOB-of-UTF-8 rows alike (sqlite3_column_text).
-        return await reader.ReadAsync(cancellationToken) ? reader.GetString(0) : null;
+        if (reader.IsDBNull(1))
+            return reader.GetString(0);
+        await using var file = OpenFile(reader.GetString(1));
+        if (file is null)
+            return null;
+        using var text = new StreamReader(file, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: false);
+        return await text.ReadToEndAsync(cancellationToken);
     }
 
-    /// <summary>Reads the JSON through incremental BLOB I/O; the stream owns its connection.</summary>
+    /// <summary>
+    /// A file row: the file, opened for shared read. An older in-row report: incremental BLOB I/O, the stream owning its
+    /// connection. A file deleted between the lookup and the open is a report deleted meanwhile: null.
+    /// </summary>
     public async Task<Stream?> OpenJsonAsync(string tenant, string id, CancellationToken cancellationToken)
     {
         var connection = await OpenAsync(cancellationToken);
         try
         {
             await using var command = connection.CreateCommand();
-            command.CommandText = "SELECT rowid FROM reports WHERE tenant = $tenant AND id = $id";
+            command.CommandText = "SELECT rowid, json_file FROM reports WHERE tenant = $tenant AND id = $id";
             command.Parameters.AddWithValue("$tenant", tenant);
             command.Parameters.AddWithValue("$id", id);
-            if (await command.ExecuteScalarAsync(cancellationToken) is not long rowId)
+            long rowId;
+            string? fileName;
+            await using (var reader = await command.ExecuteReaderAsync(cancellationToken))
             {
-                await connection.DisposeAsync();
-                return null;
+                if (!await reader.ReadAsync(cancellationToken))
+                {
+                    await connection.DisposeAsync();
+                    return null;
+                }
+                (rowId, fileName) = (reader.GetInt64(0), reader.IsDBNull(1) ? null : reader.GetString(1));
             }
-            return new OwningStream(new SqliteBlob(connection, "reports", "json", rowId, readOnly: true), connection);
+            if (fileName is null)
+                return new OwningStream(new SqliteBlob(connection, "reports", "json", rowId, readOnly: true), connection);
+            await connection.DisposeAsync();
+            return OpenFile(fileName);
         }
         catch
         {
             await connection.DisposeAsync();
             throw;
+        }
+    }
+
+    private FileStream? OpenFile(string fileName)
+    {
+        try
+        {
+            // ReadWrite share: the POST that created the report may still hold its (published) staging handle.
+            return new FileStream(files.PathOf(fileName), FileMode.Open, FileAccess.Read, FileShare.ReadWrite | FileShare.Delete,
+                TemporaryJsonSpool.FileBufferBytes, FileOptions.Asynchronous | FileOptions.SequentialScan);
+        }
+        catch (FileNotFoundException)
+        {
+            return null;
         }
     }
 
@@ -183,44 +225,50 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         return ReportSummaryPage.FromRows(rows, query.Limit);
     }
 
-    /// <summary>Through the group commit's write lock, so a delete never waits in SQLite's busy-retry sleeps.</summary>
-    public async Task<bool> DeleteAsync(string tenant, string id, CancellationToken cancellationToken)
-    {
-        await writeLock.WaitAsync(cancellationToken);
-        try
-        {
-            await using var connection = await OpenAsync(cancellationToken);
-            await using var command = connection.CreateCommand();
-            command.CommandText = "DELETE FROM reports WHERE tenant = $tenant AND id = $id";
-            command.Parameters.AddWithValue("$tenant", tenant);
-            command.Parameters.AddWithValue("$id", id);
-            return await command.ExecuteNonQueryAsync(cancellationToken) > 0;
-        }
-        finally
-        {
-            writeLock.Release();
-        }
-    }
+    public async Task<bool> DeleteAsync(string tenant, string id, CancellationToken cancellationToken) =>
+        await DeleteRowsAsync("DELETE FROM reports WHERE tenant = $tenant AND id = $id RETURNING json_file", [("$tenant", tenant), ("$id", id)], cancellationToken) > 0;
 
     public async Task<int> DeleteCreatedBeforeAsync(DateTimeOffset cutoff, int batchSize, CancellationToken cancellationToken)
     {
+        var deleted = await DeleteRowsAsync("DELETE FROM reports WHERE rowid IN (SELECT rowid FROM reports WHERE created_at < $cutoff LIMIT $batch) RETURNING json_file",
+            [("$cutoff", TimeText(cutoff)), ("$batch", batchSize)], cancellationToken);
+        // Freed pages go through the WAL too; let the background checkpoint count them (a page per row, roughly).
+        checkpoints.Committed(deleted * 4096L);
+        return deleted;
+    }
+
+    /// <summary>
+    /// One DELETE ... RETURNING json_file (its own transaction, under the group commit's write lock so it never waits in
+    /// SQLite's busy-retry sleeps), then the deleted rows' files: a file goes only after no committed row names it.
+    /// SQLite makes every change at the first step (https://sqlite.org/lang_returning.html), so the names are read to the
+    /// end whatever the token says; a crash before the files go leaves orphans for the next start.
+    /// </summary>
+    private async Task<int> DeleteRowsAsync(string sql, (string Name, object Value)[] parameters, CancellationToken cancellationToken)
+    {
+        var (deleted, fileNames) = (0, new List<string>());
         await writeLock.WaitAsync(cancellationToken);
         try
         {
             await using var connection = await OpenAsync(cancellationToken);
             await using var command = connection.CreateCommand();
-            command.CommandText = "DELETE FROM reports WHERE rowid IN (SELECT rowid FROM reports WHERE created_at < $cutoff LIMIT $batch)";
-            command.Parameters.AddWithValue("$cutoff", TimeText(cutoff));
-            command.Parameters.AddWithValue("$batch", batchSize);
-            var deleted = await command.ExecuteNonQueryAsync(cancellationToken);
-            // Freed pages go through the WAL too; let the background checkpoint count them (a page per row, roughly).
-            checkpoints.Committed(deleted * 4096L);
-            return deleted;
+            command.CommandText = sql;
+            foreach (var (name, value) in parameters)
+                command.Parameters.AddWithValue(name, value);
+            await using var reader = await command.ExecuteReaderAsync(cancellationToken);
+            while (await reader.ReadAsync(CancellationToken.None))
+            {
+                deleted++;
+                if (!reader.IsDBNull(0))
+                    fileNames.Add(reader.GetString(0));
+            }
         }
         finally
         {
             writeLock.Release();
         }
+        foreach (var fileName in fileNames)
+            files.Delete(fileName);
+        return deleted;
     }
 
     /// <summary>INSERT ... ON CONFLICT DO NOTHING (SQLite upsert, https://sqlite.org/lang_upsert.html): one statement, no race.</summary>

@@ -105,6 +105,11 @@ internal static class SqliteSchema
             SELECT RAISE(ABORT, 'decisions are append-only');
         END;
         """,
+        // 8: reports above the group-commit size live as files beside the database (SqliteReportFiles); the row names its
+        // file and keeps an empty json.
+        """
+        ALTER TABLE reports ADD COLUMN json_file TEXT;
+        """,
     ];
 
     public static async Task MigrateAsync(SqliteConnection connection, CancellationToken cancellationToken)
