@@ -15,7 +15,21 @@ namespace QaService.Api.Assessments;
 /// </summary>
 internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) where T : class
 {
-    public async Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, CancellationToken cancellationToken)
+    /// <summary>Reads and deserialises the body as it streams in (a large assessment body is never held whole).</summary>
+    public Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, CancellationToken cancellationToken) =>
+        ReadAsync(request, locateFailure: null, cancellationToken);
+
+    /// <summary>
+    /// Reads the whole body first, then deserialises it in one synchronous pass: for bodies read into columns by a
+    /// converter of a whole array (the transform's points), which the streaming path would first buffer anyway, and
+    /// where a truncated array is then reported at the element it broke off at.
+    /// </summary>
+    /// <param name="locateFailure">Given the body, the pointer suffix of where a syntax error lies when the serializer
+    /// gives only the enclosing member (e.g. <c>/1</c> for the second point of an array read by one converter).</param>
+    public Task<(T? Value, IResult? Problem)> ReadWholeAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?> locateFailure, CancellationToken cancellationToken) =>
+        ReadAsync(request, locateFailure, cancellationToken);
+
+    private async Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?>? locateFailure, CancellationToken cancellationToken)
     {
         if (!request.HasJsonContentType())
         {
@@ -28,16 +42,27 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         if (request.ContentLength > limits.Value.MaxBodyBytes)
             return (null, TooLarge());
 
+        using var body = locateFailure is null ? null : new MemoryStream(checked((int)Math.Min(request.ContentLength ?? MinimumBufferBytes, limits.Value.MaxBodyBytes)));
         try
         {
-            var value = await JsonSerializer.DeserializeAsync<T>(request.Body, ReportJson.Read, cancellationToken);
+            T? value;
+            if (body is not null)
+            {
+                await request.Body.CopyToAsync(body, cancellationToken);
+                if (body.Length > limits.Value.MaxBodyBytes)
+                    return (null, TooLarge());
+                value = JsonSerializer.Deserialize<T>(body.GetBuffer().AsSpan(0, (int)body.Length), ReportJson.Read);
+            }
+            else
+                value = await JsonSerializer.DeserializeAsync<T>(request.Body, ReportJson.Read, cancellationToken);
             return value is null
                 ? (null, InputProblems.Invalid([new InputError("", "the body must be a JSON object, not null")]))
                 : (value, null);
         }
         catch (JsonException exception)
         {
-            return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path) + MemberSuffix(exception), Describe(exception))]));
+            var located = body is not null && MemberSuffix(exception).Length == 0 ? locateFailure!(body.GetBuffer().AsMemory(0, (int)body.Length)) : null;
+            return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path) + (located ?? MemberSuffix(exception)), Describe(exception))]));
         }
         catch (BadHttpRequestException exception) when (exception.StatusCode == StatusCodes.Status413PayloadTooLarge)
         {
@@ -45,12 +70,16 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         }
     }
 
+    /// <summary>First buffer size when the body's length is not announced (chunked), bytes.</summary>
+    private const int MinimumBufferBytes = 65_536;
+
     private IResult TooLarge() => InputProblems.Status(StatusCodes.Status413PayloadTooLarge, "Request body too large",
         string.Create(CultureInfo.InvariantCulture, $"the body is larger than the limit of {limits.Value.MaxBodyBytes} bytes (Limits:MaxBodyBytes)"));
 
     /// <summary>The field a hand-written converter names (the serializer's path stops at the object it converts).</summary>
     private static string MemberSuffix(JsonException exception) =>
-        exception.Data[Core.Transform.TransformPointJsonConverter.MemberKey] is string member ? "/" + member.Replace("~", "~0").Replace("/", "~1") : "";
+        (exception.Data[Core.Transform.TransformPointListJsonConverter.IndexKey] is int index ? string.Create(CultureInfo.InvariantCulture, $"/{index}") : "") +
+        (exception.Data[Core.Transform.TransformPointJsonConverter.MemberKey] is string member ? "/" + member.Replace("~", "~0").Replace("/", "~1") : "");
 
     /// <summary>Messages without .NET type names: say what is wrong in JSON terms and where.</summary>
     private static string Describe(JsonException exception)

@@ -14,12 +14,6 @@ namespace QaService.Api.Transform;
 /// <summary>POST /v1/transform (api-v1): read, hand over to Core, write. The maths is in Core.Transform and Core.Geodesy.</summary>
 internal static class TransformApi
 {
-    /// <summary>Decimal places written for degrees: 1e-10° ≈ 11 µm.</summary>
-    private const int DegreeDecimals = 10;
-
-    /// <summary>Decimal places written for metres and feet: 1e-6, a micrometre.</summary>
-    private const int LinearDecimals = 6;
-
     public static RouteGroupBuilder MapTransform(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/v1/transform").WithTags("Transform");
@@ -38,7 +32,7 @@ internal static class TransformApi
     internal static async Task<IResult> TransformAsync(
         HttpRequest request, JsonBodyReader<TransformRequest> reader, IOptions<LimitsOptions> limits, QaMetrics metrics, CancellationToken cancellationToken)
     {
-        var (body, problem) = await reader.ReadAsync(request, cancellationToken);
+        var (body, problem) = await reader.ReadWholeAsync(request, LocatePointFailure, cancellationToken);
         if (problem is not null)
             return problem;
         var pointCount = body!.Points?.Count ?? 0;
@@ -51,77 +45,10 @@ internal static class TransformApi
         return new TransformJsonResult(outcome.Result);
     }
 
-    /// <summary>
-    /// Streams the response with <see cref="Utf8JsonWriter"/>: no object per point, numbers as plain decimals at the
-    /// resolution above (the same value Math.Round gave before, written without the shortest-round-trip search).
-    /// </summary>
-    private sealed class TransformJsonResult(TransformResult result) : IResult
-    {
-        public async Task ExecuteAsync(HttpContext httpContext)
-        {
-            httpContext.Response.StatusCode = StatusCodes.Status200OK;
-            httpContext.Response.ContentType = "application/json; charset=utf-8";
-            await using var writer = new Utf8JsonWriter(httpContext.Response.BodyWriter);
-            writer.WriteStartObject();
-            writer.WriteString("from", result.Source.Identifier);
-            writer.WriteString("to", result.Target.Identifier);
-            writer.WriteStartArray("points");
-            var p = result.Points;
-            var (first, second, third) = result.Target.Kind switch
-            {
-                CrsKind.Geographic => ("lat", "lon", "h"),
-                CrsKind.Projected => ("e", "n", "h"),
-                _ => ("x", "y", "z"),
-            };
-            var planar = result.Target.Kind == CrsKind.Geographic ? DegreeDecimals : LinearDecimals;
-            var geocentric = result.Target.Kind == CrsKind.Geocentric;
-            var names = (First: JsonEncodedText.Encode(first), Second: JsonEncodedText.Encode(second), Third: JsonEncodedText.Encode(third));
-            for (var i = 0; i < p.Count; i++)
-            {
-                writer.WriteStartObject();
-                WriteFixed(writer, names.First, p.First[i], planar);
-                WriteFixed(writer, names.Second, p.Second[i], planar);
-                if (geocentric || result.HasHeight[i])
-                    WriteFixed(writer, names.Third, p.Third[i], LinearDecimals);
-                writer.WriteEndObject();
-                if (writer.BytesPending > 32_768)
-                    await writer.FlushAsync(httpContext.RequestAborted);
-            }
-            writer.WriteEndArray();
-            writer.WriteString("operation", result.Operation);
-            if (result.AccuracyMetres is { } accuracy)
-                writer.WriteNumber("accuracy", accuracy);
-            else
-                writer.WriteNull("accuracy");
-            writer.WriteStartArray("warnings");
-            foreach (var warning in result.Warnings)
-            {
-                writer.WriteStartObject();
-                writer.WriteString("code", warning.Code);
-                writer.WriteString("message", warning.Message);
-                writer.WriteStartArray("points");
-                foreach (var index in warning.PointIndexes)
-                    writer.WriteNumberValue(index);
-                writer.WriteEndArray();
-                writer.WriteEndObject();
-            }
-            writer.WriteEndArray();
-            writer.WriteEndObject();
-            await writer.FlushAsync(httpContext.RequestAborted);
-        }
+    /// <summary>The point a syntax error broke off at (<c>/3</c> under <c>/points</c>), when the serializer names only the array.</summary>
+    private static string? LocatePointFailure(ReadOnlyMemory<byte> body) =>
+        TransformPointListJsonConverter.BrokenPointIndex(body.Span) is { } index ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"/{index}") : null;
 
-        private static void WriteFixed(Utf8JsonWriter writer, JsonEncodedText name, double value, int decimals)
-        {
-            Span<byte> text = stackalloc byte[FixedDecimalUtf8.MaximumBytes];
-            if (FixedDecimalUtf8.TryFormat(value, decimals, text, out var length))
-            {
-                writer.WritePropertyName(name);
-                writer.WriteRawValue(text[..length], skipInputValidation: true);
-            }
-            else
-                writer.WriteNumber(name, Math.Round(value, decimals));
-        }
-    }
 }
 
 /// <summary>Response shape for the OpenAPI document (the handler streams the same fields).</summary>

@@ -15,15 +15,28 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
     /// <summary>Key in <see cref="Exception.Data"/> of the field a reading error is about.</summary>
     public const string MemberKey = "json-member";
 
-    private const int FieldCount = 8;
+    internal const int FieldCount = 8;
 
     public override TransformPoint Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)
     {
+        Span<double> values = stackalloc double[FieldCount];
+        Span<bool> present = stackalloc bool[FieldCount];
+        ReadFields(ref reader, values, present);
+        return new TransformPoint(
+            present[0] ? values[0] : null, present[1] ? values[1] : null, present[2] ? values[2] : null, present[3] ? values[3] : null,
+            present[4] ? values[4] : null, present[5] ? values[5] : null, present[6] ? values[6] : null, present[7] ? values[7] : null);
+    }
+
+    /// <summary>
+    /// Reads one point object at the reader into <paramref name="values"/> by field (TransformPoint
+    /// order), <paramref name="present"/> set where a number was given; the one definition of a point's strictness.
+    /// </summary>
+    internal static void ReadFields(ref Utf8JsonReader reader, scoped Span<double> values, scoped Span<bool> present)
+    {
         if (reader.TokenType != JsonTokenType.StartObject)
             throw new JsonException("The JSON value could not be converted to a point object.");
-        Span<double> values = stackalloc double[FieldCount];
         Span<bool> seen = stackalloc bool[FieldCount];
-        Span<bool> present = stackalloc bool[FieldCount];
+        present.Clear();
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {
             var field = FieldOf(ref reader);
@@ -41,9 +54,6 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
         }
         if (reader.TokenType != JsonTokenType.EndObject)
             throw new JsonException("A point object is not closed.");
-        return new TransformPoint(
-            present[0] ? values[0] : null, present[1] ? values[1] : null, present[2] ? values[2] : null, present[3] ? values[3] : null,
-            present[4] ? values[4] : null, present[5] ? values[5] : null, present[6] ? values[6] : null, present[7] ? values[7] : null);
     }
 
     /// <summary>Writes the fields that are set, as a client sends them (the service itself only reads points).</summary>
@@ -60,7 +70,7 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
     }
 
     /// <summary>Field names in <see cref="TransformPoint"/> constructor order.</summary>
-    private static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];
+    internal static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];
 
     private static int FieldOf(ref Utf8JsonReader reader)
     {

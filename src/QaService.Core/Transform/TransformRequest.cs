@@ -14,7 +14,7 @@ namespace QaService.Core.Transform;
 public sealed record TransformRequest(
     string? From,
     string? To,
-    IReadOnlyList<TransformPoint?>? Points,
+    [property: System.Text.Json.Serialization.JsonConverter(typeof(TransformPointListJsonConverter))] IReadOnlyList<TransformPoint?>? Points,
     double? Epoch = null,
     string? FromGeoid = null,
     string? ToGeoid = null,

@@ -37,8 +37,9 @@ public static class TransformRunner
         var points = request.Points;
         var buffer = new CoordinateBuffer(points.Count, withEpochs: request.Epoch is not null);
         var hasHeight = new bool[points.Count];
+        var columns = points as TransformPointColumns;
         for (var i = 0; i < points.Count; i++)
-            Read(points[i], i, source, buffer, hasHeight, errors);
+            Read(columns is null ? PointFields.Of(points[i]) : PointFields.Of(columns, i), i, source, buffer, hasHeight, errors);
         if (errors.Count > 0)
             return new TransformOutcome(null, errors);
         if (buffer.EpochYears is { } epochs)
@@ -107,9 +108,19 @@ public static class TransformRunner
         return model;
     }
 
-    private static void Read(TransformPoint? point, int index, CoordinateReferenceSystem crs, CoordinateBuffer buffer, bool[] hasHeight, List<InputError> errors)
+    /// <summary>One point's fields, from a point object or straight from the columns (a value: no object per point).</summary>
+    private readonly record struct PointFields(double? Lat, double? Lon, double? E, double? N, double? X, double? Y, double? Z, double? H)
     {
-        if (point is null)
+        public static PointFields? Of(TransformPoint? p) => p is null ? null : new(p.Lat, p.Lon, p.E, p.N, p.X, p.Y, p.Z, p.H);
+
+        public static PointFields? Of(TransformPointColumns c, int i) => c.IsNull(i)
+            ? null
+            : new(c.Field(0, i), c.Field(1, i), c.Field(2, i), c.Field(3, i), c.Field(4, i), c.Field(5, i), c.Field(6, i), c.Field(7, i));
+    }
+
+    private static void Read(PointFields? given, int index, CoordinateReferenceSystem crs, CoordinateBuffer buffer, bool[] hasHeight, List<InputError> errors)
+    {
+        if (given is not { } point)
         {
             errors.Add(new(InvariantText.Format($"/points/{index}"), "a point must be an object, not null"));
             return;

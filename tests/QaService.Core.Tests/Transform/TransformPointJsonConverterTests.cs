@@ -55,7 +55,8 @@ public sealed class TransformPointJsonConverterTests
         var body = $$"""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [ {{point}} ] }""";
         Assert.ThrowsAny<JsonException>(() => JsonSerializer.Deserialize<TransformRequest>(body, Serializer));
         var failure = Assert.ThrowsAny<JsonException>(() => JsonSerializer.Deserialize<TransformRequest>(body, ReportJson.Read));
-        Assert.Equal("$.points[0]", failure.Path);
+        Assert.Equal("$.points", failure.Path);
+        Assert.Equal(0, failure.Data[TransformPointListJsonConverter.IndexKey]);
         Assert.Equal(member, failure.Data[TransformPointJsonConverter.MemberKey] as string);
     }
 }
