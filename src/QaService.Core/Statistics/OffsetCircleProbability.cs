@@ -105,7 +105,23 @@ public static class OffsetCircleProbability
         return 0.5 * (SpecialFunctions.Erf(upper * InverseSqrtTwo) - SpecialFunctions.Erf(lower * InverseSqrtTwo));
     }
 
-    private static double ByQuadrature(double r, BivariateNormal distribution)
+    private static double ByQuadrature(double r, BivariateNormal distribution) => ByQuadratureWithDensity(r, distribution).Probability;
+
+    /// <summary>
+    /// P(|X| ≤ r) and its derivative in r, the density of |X| at r: dP/dr = r·∫ e^(−(k + a(r − m)²)/2) dθ / (2π√det Σ), the
+    /// radial integrand at ρ = r (same substitution as above). The exponential is already evaluated for P, so the
+    /// derivative costs one more sum over the same nodes. Null when the quadrature does not apply (a singular or
+    /// degenerate spread); then only <see cref="Probability"/> is defined.
+    /// </summary>
+    internal static (double Probability, double DensityPerMetre)? WithDensity(double radiusMetres, BivariateNormal distribution)
+    {
+        var (major, minor) = PrincipalAxes.FromSecondMoments(distribution.VarianceEast, distribution.VarianceNorth, distribution.CovarianceEastNorth);
+        if (!(radiusMetres >= 0.0) || double.IsPositiveInfinity(radiusMetres) || major == 0.0 || minor < SingularAxisRatio * major)
+            return null;
+        return ByQuadratureWithDensity(radiusMetres, distribution);
+    }
+
+    private static (double Probability, double DensityPerMetre) ByQuadratureWithDensity(double r, BivariateNormal distribution)
     {
         var (muE, muN, varE, varN, cov) = distribution;
         double det = (varE * varN) - (cov * cov);
@@ -115,31 +131,33 @@ public static class OffsetCircleProbability
         double expHalfC = Math.Exp(-c / 2.0);
         var table = OffsetCircleNodes.For(distribution, iEE, iNN, iEN, c);
 
-        // The radial integral in direction θ; the θ-only terms come from the node table (see OffsetCircleNodes).
-        void AddLevel(ref double total, OffsetCircleNodes.Level level)
+        // The radial integral in direction θ (and the integrand at ρ = r); the θ-only terms come from the node table (see OffsetCircleNodes).
+        void AddLevel(ref double total, ref double atRadius, OffsetCircleNodes.Level level)
         {
             double[] aAt = level.A, mAt = level.M, kAt = level.K, sAt = level.S, erfAtMean = level.ErfAtMean, secondFactor = level.SecondFactor;
             for (int i = 0; i < aAt.Length; i++)
             {
                 double a = aAt[i], m = mAt[i], k = kAt[i], s = sAt[i];
-                double first = (expHalfC - Math.Exp(-(k + (a * (r - m) * (r - m))) / 2.0)) / a;
+                double edge = Math.Exp(-(k + (a * (r - m) * (r - m))) / 2.0);
+                double first = (expHalfC - edge) / a;
                 double erfPair = m >= 0.0
                     ? SpecialFunctions.Erf(s * (r - m)) + erfAtMean[i]
                     : erfAtMean[i] - SpecialFunctions.Erfc(s * (r - m));
                 double second = m == 0.0 ? 0.0 : secondFactor[i] * erfPair;
                 total += first + second;
+                atRadius += edge;
             }
         }
 
         double scale = 1.0 / (2.0 * Math.PI * Math.Sqrt(det));
         int nodes = InitialNodes;
-        double sum = 0.0;
-        AddLevel(ref sum, table[0]);
+        double sum = 0.0, edgeSum = 0.0;
+        AddLevel(ref sum, ref edgeSum, table[0]);
         double estimate = scale * sum * (2.0 * Math.PI / nodes);
         for (int level = 1; nodes < MaximumNodes; level++)
         {
             // Add the midpoints: the new nodes of the doubled rule.
-            AddLevel(ref sum, table[level]);
+            AddLevel(ref sum, ref edgeSum, table[level]);
             nodes *= 2;
             double refined = scale * sum * (2.0 * Math.PI / nodes);
             bool converged = Math.Abs(refined - estimate) <= RelativeTolerance * Math.Max(refined, 1e-3);
@@ -148,6 +166,6 @@ public static class OffsetCircleProbability
                 break;
         }
 
-        return Math.Clamp(estimate, 0.0, 1.0);
+        return (Math.Clamp(estimate, 0.0, 1.0), scale * r * edgeSum * (2.0 * Math.PI / nodes));
     }
 }
