@@ -114,23 +114,9 @@ internal sealed class TransformJsonResult(TransformResult result) : IResult
         return [.. "],"u8, .. buffer.WrittenSpan[1..]];
     }
 
-    private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at)
-    {
-        bytes.CopyTo(destination[at..]);
-        at += bytes.Length;
-    }
+    private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at) => Utf8Appender.Append(bytes, destination, ref at);
 
     /// <summary>The fixed-resolution decimal; out of its range, the writer's own number for the rounded value, as before.</summary>
-    private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at)
-    {
-        if (FixedDecimalUtf8.TryFormat(value, decimals, destination[at..], out var written))
-        {
-            at += written;
-            return;
-        }
-        var buffer = new ArrayBufferWriter<byte>(FixedDecimalUtf8.MaximumBytes);
-        using (var writer = new Utf8JsonWriter(buffer))
-            writer.WriteNumberValue(Math.Round(value, decimals));
-        Append(buffer.WrittenSpan, destination, ref at);
-    }
+    private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at) =>
+        Utf8Appender.AppendNumber(value, decimals, Math.Round(value, decimals), destination, ref at);
 }

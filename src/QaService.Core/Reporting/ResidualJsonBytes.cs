@@ -92,25 +92,11 @@ internal static class ResidualJsonBytes
         AppendString(text, destination, ref at, ref cache);
     }
 
-    private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at)
-    {
-        bytes.CopyTo(destination[at..]);
-        at += bytes.Length;
-    }
+    private static void Append(ReadOnlySpan<byte> bytes, Span<byte> destination, ref int at) => Utf8Appender.Append(bytes, destination, ref at);
 
-    private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at)
-    {
-        if (FixedDecimalUtf8.TryFormat(value, decimals, destination[at..], out var written))
-        {
-            at += written;
-            return;
-        }
-        // Out of the fixed range (or not finite): the writer's own number form, as the converter falls back to.
-        var buffer = new ArrayBufferWriter<byte>(FixedDecimalUtf8.MaximumBytes);
-        using (var writer = new Utf8JsonWriter(buffer))
-            writer.WriteNumberValue(value);
-        Append(buffer.WrittenSpan, destination, ref at);
-    }
+    /// <summary>Out of the fixed range (or not finite): the writer's own number form, as the converter falls back to.</summary>
+    private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at) =>
+        Utf8Appender.AppendNumber(value, decimals, value, destination, ref at);
 
     private static void AppendString(string text, Span<byte> destination, ref int at, ref EncodedStringCache cache)
     {
