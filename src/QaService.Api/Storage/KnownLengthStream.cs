@@ -1,7 +1,7 @@
 namespace QaService.Api.Storage;
 
 /// <summary>A forward-only stream whose length is known in advance (the response's Content-Length); position counts bytes read.</summary>
-internal sealed class KnownLengthStream(Stream inner, long length) : Stream
+internal sealed class KnownLengthStream(Stream inner, long length) : ForwardingStream(inner)
 {
     private long position;
 
@@ -16,32 +16,22 @@ internal sealed class KnownLengthStream(Stream inner, long length) : Stream
         set => throw new NotSupportedException();
     }
 
-    public override int Read(byte[] buffer, int offset, int count) => Counted(inner.Read(buffer, offset, count));
-    public override int Read(Span<byte> buffer) => Counted(inner.Read(buffer));
-    public override async ValueTask<int> ReadAsync(Memory<byte> buffer, CancellationToken cancellationToken = default) => Counted(await inner.ReadAsync(buffer, cancellationToken));
+    public override int Read(byte[] buffer, int offset, int count) => Counted(Inner.Read(buffer, offset, count));
+    public override int Read(Span<byte> buffer) => Counted(Inner.Read(buffer));
+    public override async ValueTask<int> ReadAsync(Memory<byte> buffer, CancellationToken cancellationToken = default) => Counted(await Inner.ReadAsync(buffer, cancellationToken));
     public override async Task<int> ReadAsync(byte[] buffer, int offset, int count, CancellationToken cancellationToken) =>
-        Counted(await inner.ReadAsync(buffer.AsMemory(offset, count), cancellationToken));
+        Counted(await Inner.ReadAsync(buffer.AsMemory(offset, count), cancellationToken));
     public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
     public override void Flush() { }
     public override void SetLength(long value) => throw new NotSupportedException();
     public override void Write(byte[] buffer, int offset, int count) => throw new NotSupportedException();
+    public override void Write(ReadOnlySpan<byte> buffer) => throw new NotSupportedException();
+    public override ValueTask WriteAsync(ReadOnlyMemory<byte> buffer, CancellationToken cancellationToken = default) => throw new NotSupportedException();
+    public override Task WriteAsync(byte[] buffer, int offset, int count, CancellationToken cancellationToken) => throw new NotSupportedException();
 
     private int Counted(int read)
     {
         position += read;
         return read;
-    }
-
-    protected override void Dispose(bool disposing)
-    {
-        if (disposing)
-            inner.Dispose();
-        base.Dispose(disposing);
-    }
-
-    public override async ValueTask DisposeAsync()
-    {
-        await inner.DisposeAsync();
-        GC.SuppressFinalize(this);
     }
 }
