@@ -50,6 +50,18 @@ public sealed class DeliveryFiguresTests
     }
 
     [Fact]
+    public async Task A_report_is_read_in_one_small_read_when_its_head_fits()
+    {
+        // A project page reads every delivery's head: one small read per delivery (a page or two of SQLite), not 16 KiB.
+        var bytes = JsonSerializer.SerializeToUtf8Bytes(Sample(200), ReportJson.Write);
+        var stream = new TrickleStream(bytes, int.MaxValue);
+        var figures = await DeliveryFigures.ReadAsync(stream, CancellationToken.None);
+        Assert.Equal(200, figures.HorizontalN);
+        Assert.Equal(DeliveryFigures.FirstReadBytes, stream.Position);
+        Assert.Equal(1, stream.Reads);
+    }
+
+    [Fact]
     public async Task Block_order_and_unknown_fields_do_not_matter()
     {
         var json = """{"residuals":[{"a":[1,2,{"b":3}]}],"extra":{"horizontal":{"n":1}},"vertical":null,"horizontal":{"n":5,"rmseR":0.25,"nssda95":0.43,"future":[1]}}""";
@@ -64,9 +76,19 @@ public sealed class DeliveryFiguresTests
     /// <summary>Hands out at most <c>chunk</c> bytes per read, like a network or BLOB stream.</summary>
     private sealed class TrickleStream(byte[] data, int chunk) : MemoryStream(data, writable: false)
     {
-        public override int Read(Span<byte> buffer) => base.Read(buffer[..Math.Min(buffer.Length, chunk)]);
+        /// <summary>Reads asked for so far.</summary>
+        public int Reads { get; private set; }
 
-        public override ValueTask<int> ReadAsync(Memory<byte> buffer, CancellationToken cancellationToken = default) =>
-            base.ReadAsync(buffer[..Math.Min(buffer.Length, chunk)], cancellationToken);
+        public override int Read(Span<byte> buffer)
+        {
+            Reads++;
+            return base.Read(buffer[..Math.Min(buffer.Length, chunk)]);
+        }
+
+        public override ValueTask<int> ReadAsync(Memory<byte> buffer, CancellationToken cancellationToken = default)
+        {
+            Reads++;
+            return base.ReadAsync(buffer[..Math.Min(buffer.Length, chunk)], cancellationToken);
+        }
     }
 }
