@@ -109,21 +109,15 @@ public static class AttributeGrouping
                 order[next[groupOf[i]]++] = i;
         }
 
-        var groups = new List<AttributeGroup>(k);
-        var radialByGroup = new List<double[]>(k);
-        var eastByGroup = new List<double[]>(k);
-        var northByGroup = new List<double[]>(k);
-        var upByGroup = new List<double[]>(k);
-        for (var g = 0; g < k; g++)
+        var groups = new AttributeGroup[k];
+        var (eastByGroup, northByGroup, radialByGroup, upByGroup) = (new double[k][], new double[k][], new double[k][], new double[k][]);
+        // Each group is gathered and judged on its own (one slot each), side by side when the rows are many.
+        ParallelWork.Invoke(order.Length >= ParallelWork.MinimumRange, [.. Enumerable.Range(0, k).Select(g => (Action)(() =>
         {
             var members = order.AsSpan(starts[g], counts[g]);
-            var (east, north, radial, up) = Gather(columns, members, upIndexOfRow);
-            eastByGroup.Add(east);
-            northByGroup.Add(north);
-            radialByGroup.Add(radial);
-            upByGroup.Add(up);
-            groups.Add(Judge(input, columns, attribute, values[g], members, east, north, radial, up, marksById));
-        }
+            (eastByGroup[g], northByGroup[g], radialByGroup[g], upByGroup[g]) = Gather(columns, members, upIndexOfRow);
+            groups[g] = Judge(input, columns, attribute, values[g], members, eastByGroup[g], northByGroup[g], radialByGroup[g], upByGroup[g], marksById);
+        }))]);
 
         var tests = new List<GroupDifference>();
         AddTest(tests, "equal-spread", "dH", SpreadMethod, radialByGroup, GroupComparison.BrownForsythe, minimum: 2);
@@ -194,7 +188,7 @@ public static class AttributeGrouping
         return new AttributeGroup(value, members.Length, horizontal, vertical, verdict, summary, source);
     }
 
-    private static void AddTest(List<GroupDifference> tests, string hypothesis, string quantity, string method, List<double[]> groups,
+    private static void AddTest(List<GroupDifference> tests, string hypothesis, string quantity, string method, double[][] groups,
         Func<IReadOnlyList<double[]>, GroupTestResult?> test, int minimum)
     {
         var usable = groups.Where(g => g.Length >= minimum).ToList();

@@ -105,7 +105,7 @@ internal static class PointSetReading
         var isMark = markCheck is null;
         var useHeight = frame.Heights != HeightReference.None;
         var columns = points as IPointValueList;
-        FixAttributes? previous = null;
+        var shared = new Dictionary<FixAttributes, FixAttributes>();
         for (var i = from; i < to; i++)
         {
             var pointPointer = new PointPointer(pointer, i);
@@ -122,10 +122,15 @@ internal static class PointSetReading
             CheckSigma(point.SigmaH, pointPointer, "sigmaH", errors);
             CheckSigma(point.SigmaV, pointPointer, "sigmaV", errors);
             var attributes = ReadAttributes(point, pointPointer, isMark, frame.Crs.Unit.MetresPerUnit, errors);
-            // Runs of fixes with the same attributes (one crew, one class) share one object.
-            if (attributes is not null && attributes == previous)
-                attributes = previous;
-            previous = attributes ?? previous;
+            // Fixes with the same attributes (a handful of classes, crews and receivers) share one object, up to a bound
+            // (reported sigmas or HDOPs make most fixes' attributes distinct, and those are not worth a table).
+            if (attributes is not null)
+            {
+                if (shared.TryGetValue(attributes, out var same))
+                    attributes = same;
+                else if (shared.Count < MaximumSharedAttributes)
+                    shared[attributes] = attributes;
+            }
             var geodetic = PointConversion.ToGeodetic(frame.Crs, point, pointPointer, useHeight, errors);
             if (geodetic is null || id is null)
                 continue;
@@ -140,6 +145,9 @@ internal static class PointSetReading
                 unknownMarks!.Add(new(Format($"{pointer}/points/{i}/mark"), $"no mark has the id \"{markId}\""));
         }
     }
+
+    /// <summary>Distinct attribute sets shared per slice (common practice: a delivery has a few classes × crews × receivers).</summary>
+    private const int MaximumSharedAttributes = 4_096;
 
     /// <summary>Largest velocity taken as plausible, metres per year (plates move up to ~0.15 m/yr; common practice).</summary>
     private const double MaximumVelocityMetresPerYear = 1.0;
