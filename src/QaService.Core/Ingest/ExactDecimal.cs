@@ -1,3 +1,5 @@
+using System.Numerics;
+
 namespace QaService.Core.Ingest;
 
 /// <summary>
@@ -25,21 +27,26 @@ internal static class ExactDecimal
     ];
 
     /// <summary>True with the exact, correctly rounded value when <paramref name="text"/> is on the fast path.</summary>
-    /// <param name="text">Trimmed text; sign <c>+</c> or <c>-</c>, decimal point <c>.</c> (invariant culture).</param>
-    public static bool TryRead(ReadOnlySpan<char> text, out double value)
+    /// <param name="text">Trimmed text (UTF-16 characters, or UTF-8 bytes such as a JSON number token); sign <c>+</c> or <c>-</c>, decimal point <c>.</c> (invariant culture).</param>
+    public static bool TryRead(ReadOnlySpan<char> text, out double value) => TryRead<char>(text, out value);
+
+    /// <inheritdoc cref="TryRead(ReadOnlySpan{char}, out double)"/>
+    public static bool TryRead(ReadOnlySpan<byte> utf8, out double value) => TryRead<byte>(utf8, out value);
+
+    private static bool TryRead<TChar>(ReadOnlySpan<TChar> text, out double value) where TChar : unmanaged, IBinaryInteger<TChar>
     {
         value = 0;
         var i = 0;
         var negative = false;
-        if (i < text.Length && text[i] is '-' or '+')
+        if (i < text.Length && Code(text[i]) is '-' or '+')
         {
-            negative = text[i] == '-';
+            negative = Code(text[i]) == '-';
             i++;
         }
         ulong mantissa = 0;
         var integerDigits = ReadDigits(text, ref i, ref mantissa);
         var fractionDigits = 0;
-        if (i < text.Length && text[i] == '.')
+        if (i < text.Length && Code(text[i]) == '.')
         {
             i++;
             fractionDigits = ReadDigits(text, ref i, ref mantissa);
@@ -56,16 +63,19 @@ internal static class ExactDecimal
     /// Appends the run of digits at <paramref name="i"/> to <paramref name="mantissa"/> and returns its length. The
     /// mantissa wraps only past 19 digits, and the caller refuses such numbers.
     /// </summary>
-    private static int ReadDigits(ReadOnlySpan<char> text, ref int i, ref ulong mantissa)
+    private static int ReadDigits<TChar>(ReadOnlySpan<TChar> text, ref int i, ref ulong mantissa) where TChar : unmanaged, IBinaryInteger<TChar>
     {
         var start = i;
         for (; i < text.Length; i++)
         {
-            var digit = unchecked((uint)(text[i] - '0'));
+            var digit = unchecked(Code(text[i]) - '0');
             if (digit > 9)
                 break;
             mantissa = unchecked(mantissa * 10 + digit);
         }
         return i - start;
     }
+
+    /// <summary>The code unit as a number (an ASCII character has the same code as a UTF-16 char or a UTF-8 byte).</summary>
+    private static uint Code<TChar>(TChar unit) where TChar : unmanaged, IBinaryInteger<TChar> => uint.CreateTruncating(unit);
 }

@@ -48,7 +48,9 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
             reader.Read();
             if (reader.TokenType == JsonTokenType.Null)
                 continue;
-            if (reader.TokenType != JsonTokenType.Number || !reader.TryGetDouble(out values[field]))
+            // Plain decimals by the exact fast path (bit for bit the correctly rounded value), anything else by the reader.
+            if (reader.TokenType != JsonTokenType.Number
+                || !((!reader.HasValueSequence && Ingest.ExactDecimal.TryRead(reader.ValueSpan, out values[field])) || reader.TryGetDouble(out values[field])))
                 throw Failure("The JSON value could not be converted to a number.", Names[field]);
             present[field] = true;
         }

@@ -56,6 +56,9 @@ public sealed class ExactDecimalTests
                 continue;
             checkedOnFastPath++;
             Assert.Equal(BitConverter.DoubleToInt64Bits(double.Parse(text, Styles, CultureInfo.InvariantCulture)), BitConverter.DoubleToInt64Bits(fast));
+            // The same text as UTF-8 bytes (a JSON number token): the same bits.
+            Assert.True(ExactDecimal.TryRead(System.Text.Encoding.UTF8.GetBytes(text), out var fromBytes));
+            Assert.Equal(BitConverter.DoubleToInt64Bits(fast), BitConverter.DoubleToInt64Bits(fromBytes));
         }
         Assert.True(checkedOnFastPath > 10_000, $"only {checkedOnFastPath} cases took the fast path");
     }
