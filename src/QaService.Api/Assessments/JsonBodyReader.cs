@@ -42,16 +42,16 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         if (request.ContentLength > limits.Value.MaxBodyBytes)
             return (null, TooLarge());
 
-        using var body = locateFailure is null ? null : new MemoryStream(checked((int)Math.Min(request.ContentLength ?? MinimumBufferBytes, limits.Value.MaxBodyBytes)));
+        WholeBody? body = null;
         try
         {
             T? value;
-            if (body is not null)
+            if (locateFailure is not null)
             {
-                await request.Body.CopyToAsync(body, cancellationToken);
-                if (body.Length > limits.Value.MaxBodyBytes)
+                body = await WholeBody.ReadAsync(request.BodyReader, request.ContentLength, limits.Value.MaxBodyBytes, cancellationToken);
+                if (body is null)
                     return (null, TooLarge());
-                value = JsonSerializer.Deserialize<T>(body.GetBuffer().AsSpan(0, (int)body.Length), ReportJson.Read);
+                value = JsonSerializer.Deserialize<T>(body.Span, ReportJson.Read);
             }
             else
                 value = await JsonSerializer.DeserializeAsync<T>(request.Body, ReportJson.Read, cancellationToken);
@@ -61,17 +61,18 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
         }
         catch (JsonException exception)
         {
-            var located = body is not null && MemberSuffix(exception).Length == 0 ? locateFailure!(body.GetBuffer().AsMemory(0, (int)body.Length)) : null;
+            var located = body is not null && MemberSuffix(exception).Length == 0 ? locateFailure!(body.Memory) : null;
             return (null, InputProblems.Invalid([new InputError(ToPointer(exception.Path) + (located ?? MemberSuffix(exception)), Describe(exception))]));
         }
         catch (BadHttpRequestException exception) when (exception.StatusCode == StatusCodes.Status413PayloadTooLarge)
         {
             return (null, TooLarge());
         }
+        finally
+        {
+            body?.Dispose();
+        }
     }
-
-    /// <summary>First buffer size when the body's length is not announced (chunked), bytes.</summary>
-    private const int MinimumBufferBytes = 65_536;
 
     private IResult TooLarge() => InputProblems.Status(StatusCodes.Status413PayloadTooLarge, "Request body too large",
         string.Create(CultureInfo.InvariantCulture, $"the body is larger than the limit of {limits.Value.MaxBodyBytes} bytes (Limits:MaxBodyBytes)"));
