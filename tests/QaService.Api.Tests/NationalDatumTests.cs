@@ -130,6 +130,32 @@ public sealed class NationalDatumTests(ServiceHost host) : IClassFixture<Service
     }
 
     [Fact]
+    public async Task A_marks_own_velocity_given_as_vE_vN_vU_carries_it_to_the_fixes_epoch()
+    {
+        // Invented velocities (m/yr) on a mark at 2010; the fix sits on the mark's 2010 position and is observed at 2026.5. A
+        // linear station velocity moves the mark by v·Δt (common practice, as ITRF station velocities are applied), so the
+        // residual fix − mark is −v·16.5 years in east, north and up (to well under a millimetre over 0.4 m of motion).
+        const double ve = 0.02, vn = 0.015, vu = 0.001, years = 16.5;
+        var request = new JsonObject
+        {
+            ["marks"] = new JsonObject
+            {
+                ["crs"] = "EPSG:7912", ["epoch"] = 2010.0,
+                ["points"] = new JsonArray(new JsonObject { ["id"] = "M0", ["lat"] = 48.1, ["lon"] = 11.6, ["h"] = 520.0, ["vE"] = ve, ["vN"] = vn, ["vU"] = vu }),
+            },
+            ["fixes"] = new JsonObject
+            {
+                ["crs"] = "EPSG:7912", ["epoch"] = 2026.5,
+                ["points"] = new JsonArray(new JsonObject { ["id"] = "F0", ["mark"] = "M0", ["lat"] = 48.1, ["lon"] = 11.6, ["h"] = 520.0 }),
+            },
+        };
+        var residual = (await CreatedAsync(request)).GetProperty("residuals")[0];
+        Assert.Equal(-ve * years, residual.GetProperty("dE").GetDouble(), 0.001);
+        Assert.Equal(-vn * years, residual.GetProperty("dN").GetDouble(), 0.001);
+        Assert.Equal(-vu * years, residual.GetProperty("dU").GetDouble(), 0.001);
+    }
+
+    [Fact]
     public async Task Marks_at_2010_are_carried_to_the_fixes_epoch_by_the_named_plate()
     {
         // tests/reference-data/plate-motion-proj.tsv (cct, ITRF2014-PMM EURA rates, +t_epoch=2010 with time 2026.5).

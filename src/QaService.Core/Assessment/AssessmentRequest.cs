@@ -60,9 +60,10 @@ public sealed record PointRecord(
     string? Receiver = null,
     double? Hdop = null,
     string? Quality = null,
-    double? VE = null,
-    double? VN = null,
-    double? VU = null);
+    // Named explicitly: the camelCase policy would spell VE "ve", and the contract's name is "vE".
+    [property: System.Text.Json.Serialization.JsonPropertyName("vE")] double? VE = null,
+    [property: System.Text.Json.Serialization.JsonPropertyName("vN")] double? VN = null,
+    [property: System.Text.Json.Serialization.JsonPropertyName("vU")] double? VU = null);
 
 /// <summary>Required accuracy, in the measure of the selected standard (for <c>nssda</c>: 95 % confidence), metres.</summary>
 /// <param name="Standard">Accuracy standard: <c>nssda</c> (FGDC-STD-007.3-1998, default), <c>asprs-2023</c>, <c>nmas-1947</c>, <c>nga-ce90</c>.</param>

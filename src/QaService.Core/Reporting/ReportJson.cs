@@ -36,8 +36,8 @@ public static class ReportJson
         ReadCommentHandling = JsonCommentHandling.Disallow,
         AllowTrailingCommas = false,
         MaxDepth = MaximumRequestDepth,
-        // The points of a transform batch by hand (same strictness; see the converter), the rest by the serializer.
-        Converters = { new Transform.TransformPointJsonConverter() },
+        // The points of a transform batch and of an assessment by hand (same strictness; see the converters), the rest by the serializer.
+        Converters = { new Transform.TransformPointJsonConverter(), new Assessment.PointRecordJsonConverter() },
     });
 
     /// <summary>
