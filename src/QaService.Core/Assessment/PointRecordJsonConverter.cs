@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using QaService.Core.Reporting;
 
 namespace QaService.Core.Assessment;
 
@@ -36,19 +37,18 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
         DateTimeOffset? time = null;
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {
-            var field = FieldOf(ref reader);
+            var field = PointFieldReading.FieldOf(ref reader, Names);
             if (field < 0)
-                throw Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
+                throw PointFieldReading.Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
             if (seen[field])
-                throw Failure("Duplicate property in a point.", Names[field]);
+                throw PointFieldReading.Failure("Duplicate property in a point.", Names[field]);
             seen[field] = true;
             reader.Read();
             if (reader.TokenType == JsonTokenType.Null)
                 continue;
             switch (Kinds[field])
             {
-                case Kind.Number when reader.TokenType == JsonTokenType.Number
-                    && ((!reader.HasValueSequence && Ingest.ExactDecimal.TryRead(reader.ValueSpan, out numbers[field])) || reader.TryGetDouble(out numbers[field])):
+                case Kind.Number when PointFieldReading.TryReadNumber(ref reader, out numbers[field]):
                     given[field] = true;
                     break;
                 case Kind.Text when reader.TokenType == JsonTokenType.String:
@@ -58,7 +58,7 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
                     time = t;
                     break;
                 default:
-                    throw Failure("The JSON value could not be converted to the field's type.", Names[field]);
+                    throw PointFieldReading.Failure("The JSON value could not be converted to the field's type.", Names[field]);
             }
         }
         if (reader.TokenType != JsonTokenType.EndObject)
@@ -95,22 +95,5 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
             }
         }
         writer.WriteEndObject();
-    }
-
-    private static int FieldOf(ref Utf8JsonReader reader)
-    {
-        for (var i = 0; i < Names.Length; i++)
-        {
-            if (reader.ValueTextEquals(Names[i]))
-                return i;
-        }
-        return -1;
-    }
-
-    private static JsonException Failure(string message, string member)
-    {
-        var exception = new JsonException(message);
-        exception.Data[Transform.TransformPointJsonConverter.MemberKey] = member;
-        return exception;
     }
 }

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using QaService.Core.Reporting;
 
 namespace QaService.Core.Transform;
 
@@ -39,19 +40,17 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
         present.Clear();
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {
-            var field = FieldOf(ref reader);
+            var field = PointFieldReading.FieldOf(ref reader, Names);
             if (field < 0)
-                throw Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
+                throw PointFieldReading.Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
             if (seen[field])
-                throw Failure("Duplicate property in a point.", Names[field]);
+                throw PointFieldReading.Failure("Duplicate property in a point.", Names[field]);
             seen[field] = true;
             reader.Read();
             if (reader.TokenType == JsonTokenType.Null)
                 continue;
-            // Plain decimals by the exact fast path (bit for bit the correctly rounded value), anything else by the reader.
-            if (reader.TokenType != JsonTokenType.Number
-                || !((!reader.HasValueSequence && Ingest.ExactDecimal.TryRead(reader.ValueSpan, out values[field])) || reader.TryGetDouble(out values[field])))
-                throw Failure("The JSON value could not be converted to a number.", Names[field]);
+            if (!PointFieldReading.TryReadNumber(ref reader, out values[field]))
+                throw PointFieldReading.Failure("The JSON value could not be converted to a number.", Names[field]);
             present[field] = true;
         }
         if (reader.TokenType != JsonTokenType.EndObject)
@@ -73,21 +72,4 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
 
     /// <summary>Field names in <see cref="TransformPoint"/> constructor order.</summary>
     internal static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];
-
-    private static int FieldOf(ref Utf8JsonReader reader)
-    {
-        for (var i = 0; i < Names.Length; i++)
-        {
-            if (reader.ValueTextEquals(Names[i]))
-                return i;
-        }
-        return -1;
-    }
-
-    private static JsonException Failure(string message, string member)
-    {
-        var exception = new JsonException(message);
-        exception.Data[MemberKey] = member;
-        return exception;
-    }
 }
