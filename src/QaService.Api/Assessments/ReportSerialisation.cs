@@ -18,18 +18,31 @@ internal static class ReportSerialisation
 
     public static async Task<Stream> SerialiseAsync(AssessmentReport report, IReportStore store, CancellationToken cancellationToken)
     {
-        var buffer = report.Residuals.Count <= InMemoryResidualLimit ? new MemoryStream() : store.CreateJsonSpool();
+        if (report.Residuals.Count <= InMemoryResidualLimit)
+        {
+            // Rendered into a pooled buffer, then one exact array, which the SQLite store binds as it is (no second copy).
+            using var rendered = new PooledBufferWriter();
+            ReportJsonStream.Write(report, rendered);
+            var bytes = rendered.WrittenSpan.ToArray();
+            return new MemoryStream(bytes, 0, bytes.Length, writable: false, publiclyVisible: true);
+        }
+        var spool = store.CreateJsonSpool();
         try
         {
             // The residuals go out batch by batch as they are rendered; the rest of the report is small.
-            await ReportJsonStream.WriteAsync(report, buffer, cancellationToken);
-            buffer.Position = 0;
-            return buffer;
+            await ReportJsonStream.WriteAsync(report, spool, cancellationToken);
+            spool.Position = 0;
+            return spool;
         }
         catch
         {
-            await buffer.DisposeAsync();
+            await spool.DisposeAsync();
             throw;
         }
     }
+
+    /// <summary>The serialised bytes when <paramref name="json"/> is an in-memory report from <see cref="SerialiseAsync"/> read from its start.</summary>
+    public static byte[]? WholeArrayOf(Stream json) =>
+        json is MemoryStream { Position: 0 } memory && memory.TryGetBuffer(out var segment) && segment.Offset == 0
+            && segment.Count == segment.Array!.Length ? segment.Array : null;
 }

@@ -67,8 +67,12 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         var length = json.Length - json.Position;
         if (length <= GroupCommitMaximumBytes)
         {
-            var bytes = new byte[length];
-            await json.ReadExactlyAsync(bytes, cancellationToken);
+            var bytes = Assessments.ReportSerialisation.WholeArrayOf(json);
+            if (bytes is null)
+            {
+                bytes = new byte[length];
+                await json.ReadExactlyAsync(bytes, cancellationToken);
+            }
             await GroupCommit.SaveAsync(header, bytes);
             return;
         }

@@ -22,7 +22,7 @@ public static class AssessmentRunner
         var counted = residuals.Counted();
         // Grouped by mark row once: the repeat occupations, the statistics, the checks and the report figures all read
         // the same columns (the table's own arrays, not copies).
-        var countedGroups = MarkGroups.ByRow(counted, counted.MarkRows, input.Marks.Count);
+        var countedGroups = MarkGroups.ByRow(counted.MarkRows, input.Marks);
         var countedColumns = ResidualColumns.Of(input.Marks, counted, countedGroups);
         var precision = RepeatOccupations.Precision(countedColumns);
         var pairing = Summarise(input, paired, precision);

@@ -40,12 +40,13 @@ internal sealed class MarkGroups
     public ReadOnlySpan<int> Members(int group) => memberOrder.AsSpan(groupStart[group], groupStart[group + 1] - groupStart[group]);
 
     /// <summary>Grouped by the row of each residual's mark in the request's marks (ids are unique, so a row is an id).</summary>
-    /// <param name="markRows">Row in the marks list of residual i's mark, 0 ≤ row &lt; <paramref name="markCount"/>.</param>
-    public static MarkGroups ByRow(IReadOnlyList<Residual> residuals, ReadOnlySpan<int> markRows, int markCount)
+    /// <param name="markRows">Row in <paramref name="marks"/> of residual i's mark.</param>
+    /// <param name="marks">The request's marks, whose ids name the groups (read from the list: no residual object is made).</param>
+    public static MarkGroups ByRow(ReadOnlySpan<int> markRows, IReadOnlyList<FramedPoint> marks)
     {
-        var groupOfRow = new int[markCount];
+        var groupOfRow = new int[marks.Count];
         Array.Fill(groupOfRow, -1);
-        var groupOf = new int[residuals.Count];
+        var groupOf = new int[markRows.Length];
         var markIds = new List<string>();
         for (var i = 0; i < groupOf.Length; i++)
         {
@@ -53,7 +54,7 @@ internal sealed class MarkGroups
             if (group < 0)
             {
                 group = markIds.Count;
-                markIds.Add(residuals[i].Mark);
+                markIds.Add(marks[markRows[i]].Id);
             }
             groupOf[i] = group;
         }

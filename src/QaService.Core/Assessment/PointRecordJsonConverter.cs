@@ -26,14 +26,24 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
         Kind.Number, Kind.Time, Kind.Text, Kind.Text, Kind.Text, Kind.Number, Kind.Text, Kind.Number, Kind.Number, Kind.Number,
     ];
 
+    /// <summary>One text slot per field (only the text fields are used), held on the stack.</summary>
+    [System.Runtime.CompilerServices.InlineArray(FieldCount)]
+    private struct FieldTexts
+    {
+        private string? first;
+    }
+
+    private const int FieldCount = 21;
+
     public override PointRecord Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)
     {
         if (reader.TokenType != JsonTokenType.StartObject)
             throw new JsonException("The JSON value could not be converted to a point object.");
-        Span<double> numbers = stackalloc double[Names.Length];
-        Span<bool> given = stackalloc bool[Names.Length];
-        Span<bool> seen = stackalloc bool[Names.Length];
-        var texts = new string?[Names.Length];
+        System.Diagnostics.Debug.Assert(Names.Length == FieldCount && Kinds.Length == FieldCount);
+        Span<double> numbers = stackalloc double[FieldCount];
+        Span<bool> given = stackalloc bool[FieldCount];
+        Span<bool> seen = stackalloc bool[FieldCount];
+        var texts = new FieldTexts(); // on the stack: no array per point
         DateTimeOffset? time = null;
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {

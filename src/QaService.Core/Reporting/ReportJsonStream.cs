@@ -23,17 +23,53 @@ public static class ReportJsonStream
 
     public static async Task WriteAsync(AssessmentReport report, Stream destination, CancellationToken cancellationToken)
     {
-        var frame = JsonSerializer.SerializeToUtf8Bytes(report with { Residuals = [] }, ReportJson.Write);
-        var at = frame.AsSpan().IndexOf(EmptyResiduals);
-        if (at < 0 || frame.AsSpan(at + EmptyResiduals.Length).IndexOf(EmptyResiduals) >= 0)
+        using var frame = Frame(report);
+        var openingBracket = OpeningBracket(frame.WrittenSpan);
+        if (openingBracket < 0)
         {
             await JsonSerializer.SerializeAsync(destination, report, ReportJson.Write, cancellationToken);
             return;
         }
-        var openingBracket = at + EmptyResiduals.Length - 1;
-        await destination.WriteAsync(frame.AsMemory(0, openingBracket), cancellationToken);
+        await destination.WriteAsync(frame.WrittenMemory[..openingBracket], cancellationToken);
         await WriteResidualsAsync(report.Residuals, destination, cancellationToken);
-        await destination.WriteAsync(frame.AsMemory(openingBracket), cancellationToken);
+        await destination.WriteAsync(frame.WrittenMemory[openingBracket..], cancellationToken);
+    }
+
+    /// <summary>The same bytes into a buffer, on the calling thread: for reports small enough to hold in memory.</summary>
+    public static void Write(AssessmentReport report, PooledBufferWriter destination)
+    {
+        using var frame = Frame(report);
+        var openingBracket = OpeningBracket(frame.WrittenSpan);
+        if (openingBracket < 0)
+        {
+            using var writer = new Utf8JsonWriter(destination);
+            JsonSerializer.Serialize(writer, report, ReportJson.Write);
+            return;
+        }
+        destination.Write(frame.WrittenSpan[..openingBracket]);
+        var batches = (report.Residuals.Count + BatchResiduals - 1) / BatchResiduals;
+        for (var batch = 0; batch < batches; batch++)
+            Render(report.Residuals, batch, destination);
+        destination.Write(frame.WrittenSpan[openingBracket..]);
+    }
+
+    /// <summary>Everything but the residuals: the report serialised with an empty residual array, into a pooled buffer.</summary>
+    private static PooledBufferWriter Frame(AssessmentReport report)
+    {
+        var frame = new PooledBufferWriter();
+        // Default writer options are the serializer's for ReportJson.Write (default encoder, not indented): the same bytes.
+        using var writer = new Utf8JsonWriter(frame);
+        JsonSerializer.Serialize(writer, report with { Residuals = [] }, ReportJson.Write);
+        return frame;
+    }
+
+    /// <summary>Where the residual array's opening bracket is in the frame, or −1 when the splice cannot be trusted.</summary>
+    private static int OpeningBracket(ReadOnlySpan<byte> frame)
+    {
+        var at = frame.IndexOf(EmptyResiduals);
+        if (at < 0 || frame[(at + EmptyResiduals.Length)..].IndexOf(EmptyResiduals) >= 0)
+            return -1;
+        return at + EmptyResiduals.Length - 1;
     }
 
     /// <summary>The residual objects, comma-separated, in list order; a window of batches is rendered at once on the thread pool.</summary>
@@ -41,23 +77,33 @@ public static class ReportJsonStream
     {
         var batches = (residuals.Count + BatchResiduals - 1) / BatchResiduals;
         var window = batches <= 1 ? 1 : Math.Min(batches, 2 * Environment.ProcessorCount);
-        var buffers = Enumerable.Range(0, window).Select(_ => new ArrayBufferWriter<byte>()).ToArray();
-        for (var first = 0; first < batches; first += window)
+        var buffers = new PooledBufferWriter[window];
+        try
         {
-            var count = Math.Min(window, batches - first);
-            if (count == 1)
-                Render(residuals, first, buffers[0]);
-            else
-                Parallel.For(0, count, slot => Render(residuals, first + slot, buffers[slot]));
-            for (var slot = 0; slot < count; slot++)
+            for (var slot = 0; slot < window; slot++)
+                buffers[slot] = new PooledBufferWriter();
+            for (var first = 0; first < batches; first += window)
             {
-                await destination.WriteAsync(buffers[slot].WrittenMemory, cancellationToken);
-                buffers[slot].ResetWrittenCount();
+                var count = Math.Min(window, batches - first);
+                if (count == 1)
+                    Render(residuals, first, buffers[0]);
+                else
+                    Parallel.For(0, count, slot => Render(residuals, first + slot, buffers[slot]));
+                for (var slot = 0; slot < count; slot++)
+                {
+                    await destination.WriteAsync(buffers[slot].WrittenMemory, cancellationToken);
+                    buffers[slot].Reset();
+                }
             }
+        }
+        finally
+        {
+            foreach (var buffer in buffers)
+                buffer?.Dispose();
         }
     }
 
-    private static void Render(IReadOnlyList<Residual> residuals, int batch, ArrayBufferWriter<byte> buffer)
+    private static void Render(IReadOnlyList<Residual> residuals, int batch, PooledBufferWriter buffer)
     {
         var cache = new EncodedStringCache();
         var table = residuals as Assessment.ResidualTable;

@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Collections.Concurrent;
 
 namespace QaService.Core.Statistics;
@@ -60,6 +61,12 @@ public static class BootstrapInterval
             return (lowerBound, AtRank(ref ranks, n, quantile, MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, 1.0 - tail)));
         }
 
+        double h = (n - 1) * quantile;
+        int lower = Math.Min((int)Math.Floor(h), n - 1);
+        double fraction = h - lower;
+        if (n <= PairCountingLimit)
+            return FromPairCounts(values, lower, fraction, resamples, seed, tail);
+
         var sorted = values.ToArray();
         var rank = new int[n];
         for (int i = 0; i < n; i++)
@@ -70,34 +77,50 @@ public static class BootstrapInterval
         var positionOf = new int[n];
         for (int r = 0; r < n; r++)
             positionOf[rank[r]] = r;
-        double h = (n - 1) * quantile;
-        int lower = Math.Min((int)Math.Floor(h), n - 1);
-        double fraction = h - lower;
-
-        // Each resample's estimate is fixed by the two ranks it interpolates between; small samples count resamples per
-        // rank pair (at most n² pairs, a few dozen in practice) and sort only the distinct estimates, not all resamples.
-        bool countPairs = n <= PairCountingLimit;
-        var pairCounts = countPairs ? new int[n * n] : null;
         var estimates = new double[resamples];
-        if (countPairs)
+        DrawEstimates(sorted, positionOf, lower, fraction, seed, estimates);
+        Array.Sort(estimates);
+        return (Percentile.LinearInterpolationOfSorted(estimates, tail), Percentile.LinearInterpolationOfSorted(estimates, 1.0 - tail));
+    }
+
+    /// <summary>
+    /// The small-sample path: each resample's estimate is fixed by the two ranks it interpolates between, so resamples
+    /// are counted per rank pair (at most n² pairs, a few dozen in practice) and the bounds are read from the distinct
+    /// estimates and their counts: the same two order statistics, interpolated by the same expression, as sorting all
+    /// resamples' estimates. Working arrays are rented, so a small assessment allocates nothing here.
+    /// </summary>
+    private static (double Lower, double Upper) FromPairCounts(ReadOnlySpan<double> values, int lower, double fraction,
+        int resamples, ulong seed, double tail)
+    {
+        int n = values.Length;
+        var sorted = ArrayPool<double>.Shared.Rent(n);
+        var rank = ArrayPool<int>.Shared.Rent(n);
+        var pairCounts = ArrayPool<int>.Shared.Rent(n * n);
+        try
         {
-            // Small samples: the draws depend only on (n, resamples, seed), so their per-index counts are computed once
-            // per process and shared (exactly the same draws, in the same order, as drawing them here); the counts of the
-            // ranks the walk visits are read straight from that table.
+            values.CopyTo(sorted);
+            for (int i = 0; i < n; i++)
+                rank[i] = i;
+            sorted.AsSpan(0, n).Sort(rank.AsSpan(0, n));
+            Array.Clear(pairCounts, 0, n * n);
+
+            // The draws depend only on (n, resamples, seed), so their per-index counts are computed once per process and
+            // shared (exactly the same draws, in the same order, as drawing them here); the counts of the ranks the walk
+            // visits are read straight from that table.
             var drawn = DrawCounts(n, resamples, seed);
             for (int b = 0; b < resamples; b++)
             {
                 var (atLower, atUpper) = OrderStatisticRanks(new DrawnTally(drawn, b * n, rank), n, lower, fraction);
-                pairCounts![(atLower * n) + atUpper]++;
+                pairCounts[(atLower * n) + atUpper]++;
             }
-            SortedFromPairCounts(sorted, pairCounts!, lower, fraction, estimates);
+            return DistinctEstimates.Bounds(sorted, n, pairCounts, lower, fraction, resamples, tail);
         }
-        else
+        finally
         {
-            DrawEstimates(sorted, positionOf, lower, fraction, seed, estimates);
-            Array.Sort(estimates);
+            ArrayPool<int>.Shared.Return(pairCounts);
+            ArrayPool<int>.Shared.Return(rank);
+            ArrayPool<double>.Shared.Return(sorted);
         }
-        return (Percentile.LinearInterpolationOfSorted(estimates, tail), Percentile.LinearInterpolationOfSorted(estimates, 1.0 - tail));
     }
 
     /// <summary>Fewest draws (resamples × n) worth spreading over the processors: about 5 ms of drawing (common practice).</summary>
@@ -131,7 +154,7 @@ public static class BootstrapInterval
                     for (int i = 0; i < n; i++)
                         tally[positionOf[random.NextIndex(n)]]++;
                     var (atLower, atUpper) = OrderStatisticRanks(new RankTally(tally), n, lower, fraction);
-                    estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
+                    estimates[b] = Interpolate(sorted, n, atLower, atUpper, lower, fraction);
                 }
             };
         }
@@ -171,39 +194,11 @@ public static class BootstrapInterval
         return counts;
     }
 
-    /// <summary>
-    /// Fills <paramref name="estimates"/> with the estimate of every resample in ascending order, from the number of
-    /// resamples per (lower rank, upper rank) pair: the same multiset of values, each computed by the same expression, as
-    /// sorting the per-resample estimates.
-    /// </summary>
-    private static void SortedFromPairCounts(double[] sorted, int[] pairCounts, int lower, double fraction, double[] estimates)
-    {
-        int n = sorted.Length, distinct = 0;
-        foreach (int count in pairCounts)
-            distinct += count > 0 ? 1 : 0;
-        var values = new double[distinct];
-        var counts = new int[distinct];
-        for (int pair = 0, j = 0; pair < pairCounts.Length; pair++)
-        {
-            if (pairCounts[pair] == 0)
-                continue;
-            values[j] = Interpolate(sorted, pair / n, pair % n, lower, fraction);
-            counts[j++] = pairCounts[pair];
-        }
-
-        Array.Sort(values, counts);
-        for (int j = 0, at = 0; j < distinct; j++)
-        {
-            estimates.AsSpan(at, counts[j]).Fill(values[j]);
-            at += counts[j];
-        }
-    }
-
     /// <summary>The type-7 interpolation between the order statistics found by <see cref="OrderStatisticRanks"/>.</summary>
-    private static double Interpolate(double[] sorted, int atLower, int atUpper, int lower, double fraction)
+    internal static double Interpolate(double[] sorted, int count, int atLower, int atUpper, int lower, double fraction)
     {
         double lowerValue = sorted[atLower];
-        if (fraction == 0.0 || lower + 1 >= sorted.Length)
+        if (fraction == 0.0 || lower + 1 >= count)
             return lowerValue;
         return lowerValue + (fraction * (sorted[atUpper] - lowerValue));
     }
