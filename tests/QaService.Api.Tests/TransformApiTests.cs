@@ -63,6 +63,29 @@ public sealed class TransformApiTests(ServiceHost host) : IClassFixture<ServiceH
         Assert.Equal(6378137.0, points[2].GetProperty("y").GetDouble(), 1e-6);
     }
 
+    /// <summary>
+    /// A batch large enough to be carried and rendered in blocks side by side must come back exactly as the same points
+    /// sent in batches small enough for one pass: the same text for every point, in order, heights only where given.
+    /// </summary>
+    [Fact]
+    public async Task A_large_batch_gives_the_same_points_as_small_batches()
+    {
+        const int count = 70_001, smallBatch = 30_000;
+        var random = new Random(3);
+        var points = Enumerable.Range(0, count).Select(i => i % 5 == 0
+            ? $"{{\"lat\":{40 + 15 * random.NextDouble():R},\"lon\":{12 + 6 * random.NextDouble():R}}}"
+            : $"{{\"lat\":{40 + 15 * random.NextDouble():R},\"lon\":{12 + 6 * random.NextDouble():R},\"h\":{1000 * random.NextDouble():R}}}").ToArray();
+        string Body(IEnumerable<string> batch) => $$"""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [{{string.Join(",", batch)}}] }""";
+
+        var large = (await OkAsync(Body(points))).GetProperty("points").EnumerateArray().Select(p => p.GetRawText()).ToList();
+        var small = new List<string>();
+        for (var start = 0; start < count; start += smallBatch)
+            small.AddRange((await OkAsync(Body(points.Skip(start).Take(smallBatch)))).GetProperty("points").EnumerateArray().Select(p => p.GetRawText()));
+
+        Assert.Equal(count, large.Count);
+        Assert.Equal(small, large);
+    }
+
     [Fact]
     public async Task Orthometric_output_uses_egm96()
     {

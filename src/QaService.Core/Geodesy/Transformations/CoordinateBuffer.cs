@@ -34,4 +34,24 @@ public sealed class CoordinateBuffer
     public double[]? EpochYears { get; }
 
     public int Count => First.Length;
+
+    /// <summary>A new buffer holding points <paramref name="start"/> … start + count − 1 of this one.</summary>
+    public CoordinateBuffer Copy(int start, int count)
+    {
+        var copy = new CoordinateBuffer(count, EpochYears is not null);
+        First.AsSpan(start, count).CopyTo(copy.First);
+        Second.AsSpan(start, count).CopyTo(copy.Second);
+        Third.AsSpan(start, count).CopyTo(copy.Third);
+        EpochYears?.AsSpan(start, count).CopyTo(copy.EpochYears);
+        return copy;
+    }
+
+    /// <summary>Writes this buffer's points into <paramref name="destination"/> from point <paramref name="start"/> on.</summary>
+    public void CopyTo(CoordinateBuffer destination, int start)
+    {
+        First.CopyTo(destination.First, start);
+        Second.CopyTo(destination.Second, start);
+        Third.CopyTo(destination.Third, start);
+        EpochYears?.CopyTo(destination.EpochYears!, start);
+    }
 }
