@@ -26,7 +26,7 @@ namespace QaService.Core.Statistics;
 /// width ≈ 1), and decays like e^(−s) beyond s ≈ asinh(1/q). The trapezoid rule on such an integrand converges
 /// geometrically in the number of points (Trefethen &amp; Weideman 2014, "The exponentially convergent trapezoidal rule",
 /// SIAM Review 56(3):385–458, doi:10.1137/130932132, sections 5 and 14); the step is halved from 1/2 until two
-/// successive sums agree to <see cref="QuadratureRelativeTolerance"/>, and the range is cut at asinh(1/q) + 40
+/// successive sums agree to <see cref="QuadratureRelativeTolerance"/> (the finer sum is then accurate to rounding), and the range is cut at asinh(1/q) + 40
 /// (relative truncation ≈ e^(−40)). Closed forms are used where they exist: σ₂ = 0 (or σ₂/σ₁ &lt; 1e-150) gives
 /// erf(r/(σ₁√2)) (one-dimensional), σ₁ = σ₂ gives 1 − exp(−r²/(2σ²)) (Rayleigh), σ₁ = σ₂ = 0 gives 1 for every r ≥ 0.
 /// Accuracy: relative error of the probability (and of its complement) below 1e-13, checked against the closed forms,
@@ -35,8 +35,14 @@ namespace QaService.Core.Statistics;
 /// </remarks>
 public static class CircleProbability
 {
-    /// <summary>Two successive trapezoid sums must agree to this relative difference.</summary>
-    internal const double QuadratureRelativeTolerance = 1e-14;
+    /// <summary>
+    /// Two successive trapezoid sums must agree to this relative difference; the finer one is returned. The rule's error
+    /// on this integrand falls like exp(−2πd/h) (Trefethen &amp; Weideman 2014, §5), so halving the step squares it: a
+    /// difference of 1e-10 leaves the finer sum ~1e-20 from the integral, below rounding. Measured against the earlier
+    /// 1e-14 stopping rule over q 0.3–0.9, ρ 0.8–2.5 (a Python replica of this rule): the same values to 6e-16 relative
+    /// with up to half the nodes; the scipy and closed-form checks in the tests pass unchanged.
+    /// </summary>
+    internal const double QuadratureRelativeTolerance = 1e-10;
 
     /// <summary>Below this axis ratio the one-dimensional closed form is exact to O(q²) and sinh would overflow.</summary>
     private const double NegligibleAxisRatio = 1e-150;
