@@ -34,6 +34,36 @@ public sealed class ConfidenceTests
         Assert.Null(RmseConfidence.PointsNeeded(1.1, 1.0, 0.9, 1.0));
     }
 
+    /// <summary>
+    /// The search that starts from an approximate n must land on the n a plain scan from 1 finds: the smallest n whose
+    /// exact bound meets the requirement (MathNet's chi-square quantile in both), across figures near and far from the
+    /// requirement, confidence levels, degrees per point and the search limit.
+    /// </summary>
+    [Fact]
+    public void Points_needed_is_the_smallest_n_a_scan_from_one_finds()
+    {
+        static int? Scan(double figure, double required, double level, double degreesPerPoint, int limit)
+        {
+            for (var n = 1; n <= limit; n++)
+            {
+                double nu = degreesPerPoint * n;
+                if (figure * Math.Sqrt(nu / MathNet.Numerics.Distributions.ChiSquared.InvCDF(nu, 1.0 - level)) <= required)
+                    return n;
+            }
+            return null;
+        }
+        var checkedCases = 0;
+        foreach (var ratio in new[] { 0.05, 0.3, 0.5, 0.7, 0.8, 0.9, 0.95, 0.97 })
+        foreach (var level in new[] { 0.8, 0.9, 0.95, 0.99 })
+        foreach (var degreesPerPoint in new[] { 1.0, 1.37, 2.0 })
+        {
+            const int limit = 2_000;
+            Assert.Equal(Scan(ratio, 1.0, level, degreesPerPoint, limit), RmseConfidence.PointsNeeded(ratio, 1.0, level, degreesPerPoint, limit));
+            checkedCases++;
+        }
+        Assert.Equal(96, checkedCases);
+    }
+
     [Fact]
     public void Clopper_pearson_upper_bound_matches_scipy()
     {
