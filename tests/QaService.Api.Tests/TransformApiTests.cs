@@ -129,6 +129,18 @@ public sealed class TransformApiTests(ServiceHost host) : IClassFixture<ServiceH
         await ProblemAssert.IsBadInputAsync(await PostAsync(json), pointer, fragment);
     }
 
+    /// <summary>A large body (read in pieces side by side when it is sound) still gets the exact pointer for a bad point deep inside.</summary>
+    [Theory]
+    [InlineData("""{ "lat": 1, "lon": 2, "q": 3 }""", "/points/45678/q", "not a field")]
+    [InlineData("""{ "lat": "north", "lon": 2 }""", "/points/45678/lat", "wrong type")]
+    [InlineData("""{ "lat": 1, "lon": 2, "lat": 3 }""", "/points/45678/lat", "appears twice")]
+    [InlineData("""{ "lat": 95, "lon": 2 }""", "/points/45678/lat", "outside -90..90")]
+    public async Task A_bad_point_deep_in_a_large_body_gets_its_pointer(string badPoint, string pointer, string fragment)
+    {
+        var points = string.Join(",", Enumerable.Range(0, 70_000).Select(i => i == 45_678 ? badPoint : """{"lat":48.5,"lon":15.25,"h":300}"""));
+        await ProblemAssert.IsBadInputAsync(await PostAsync($$"""{ "from": "EPSG:4326", "to": "EPSG:32633", "points": [{{points}}] }"""), pointer, fragment);
+    }
+
     [Fact]
     public async Task Every_bad_point_is_listed()
     {

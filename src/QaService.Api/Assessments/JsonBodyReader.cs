@@ -26,13 +26,17 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
     /// </summary>
     /// <param name="locateFailure">Given the body, the pointer suffix of where a syntax error lies when the serializer
     /// gives only the enclosing member (e.g. <c>/1</c> for the second point of an array read by one converter).</param>
-    public Task<(T? Value, IResult? Problem)> ReadWholeAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?> locateFailure, CancellationToken cancellationToken) =>
-        ReadAsync(request, locateFailure, cancellationToken);
+    /// <param name="quickRead">Optional shortcut tried first on the whole body (e.g. parsing parts side by side): the
+    /// value the serializer would give, or null to leave the body to the serializer (which also reports every error).</param>
+    public Task<(T? Value, IResult? Problem)> ReadWholeAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?> locateFailure,
+        CancellationToken cancellationToken, Func<ReadOnlyMemory<byte>, T?>? quickRead = null) =>
+        ReadAsync(request, locateFailure, cancellationToken, quickRead);
 
     /// <summary>Largest body with a Content-Length that is read whole before deserialising (larger ones stream).</summary>
     private const long WholeBodyMaximumBytes = 256 * 1024;
 
-    private async Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?>? locateFailure, CancellationToken cancellationToken)
+    private async Task<(T? Value, IResult? Problem)> ReadAsync(HttpRequest request, Func<ReadOnlyMemory<byte>, string?>? locateFailure, CancellationToken cancellationToken,
+        Func<ReadOnlyMemory<byte>, T?>? quickRead = null)
     {
         if (!request.HasJsonContentType())
         {
@@ -56,7 +60,7 @@ internal sealed partial class JsonBodyReader<T>(IOptions<LimitsOptions> limits) 
                 body = await WholeBody.ReadAsync(request.BodyReader, request.ContentLength, limits.Value.MaxBodyBytes, cancellationToken);
                 if (body is null)
                     return (null, TooLarge());
-                value = JsonSerializer.Deserialize<T>(body.Span, ReportJson.Read);
+                value = quickRead?.Invoke(body.Memory) ?? JsonSerializer.Deserialize<T>(body.Span, ReportJson.Read);
             }
             else
                 value = await JsonSerializer.DeserializeAsync<T>(request.Body, ReportJson.Read, cancellationToken);

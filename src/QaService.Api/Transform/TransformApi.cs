@@ -32,7 +32,8 @@ internal static class TransformApi
     internal static async Task<IResult> TransformAsync(
         HttpRequest request, JsonBodyReader<TransformRequest> reader, IOptions<LimitsOptions> limits, QaMetrics metrics, CancellationToken cancellationToken)
     {
-        var (body, problem) = await reader.ReadWholeAsync(request, LocatePointFailure, cancellationToken);
+        var (body, problem) = await reader.ReadWholeAsync(request, LocatePointFailure, cancellationToken,
+            bytes => ParallelPointReading.TryRead(bytes, ReportJson.Read));
         if (problem is not null)
             return problem;
         var pointCount = body!.Points?.Count ?? 0;

@@ -60,6 +60,42 @@ public sealed class TransformPointColumns : IReadOnlyList<TransformPoint?>
 
     System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
 
+    /// <summary>
+    /// The points of <paramref name="parts"/> one after the other: the same columns as adding them all to one instance
+    /// (a field's column exists once any point gives it, NaN where a point leaves it out; nulls kept).
+    /// </summary>
+    internal static TransformPointColumns Concatenate(IReadOnlyList<TransformPointColumns> parts)
+    {
+        var whole = new TransformPointColumns();
+        whole.count = whole.capacity = parts.Sum(p => p.count);
+        for (var field = 0; field < whole.fields.Length; field++)
+        {
+            if (!parts.Any(p => p.fields[field] is not null))
+                continue;
+            var column = whole.fields[field] = new double[whole.capacity];
+            var at = 0;
+            foreach (var part in parts)
+            {
+                if (part.fields[field] is { } source)
+                    source.AsSpan(0, part.count).CopyTo(column.AsSpan(at));
+                else
+                    column.AsSpan(at, part.count).Fill(double.NaN);
+                at += part.count;
+            }
+        }
+        if (parts.Any(p => p.isNull is not null))
+        {
+            whole.isNull = new bool[whole.capacity];
+            var at = 0;
+            foreach (var part in parts)
+            {
+                part.isNull?.AsSpan(0, part.count).CopyTo(whole.isNull.AsSpan(at));
+                at += part.count;
+            }
+        }
+        return whole;
+    }
+
     /// <summary>A new column for a field first given at point <see cref="count"/>: the points before it did not give it.</summary>
     private double[] NewColumn()
     {
