@@ -58,31 +58,42 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
     {
         await using var connection = await open(CancellationToken.None);
         await using var transaction = connection.BeginTransaction(deferred: false);
+        // One prepared statement each for the whole batch (SQLite compiles a command's text once; only the values change).
+        await using var savepoint = Command(connection, transaction, "SAVEPOINT report");
+        await using var release = Command(connection, transaction, "RELEASE report");
+        await using var rollback = Command(connection, transaction, "ROLLBACK TO report; RELEASE report");
+        await using var insert = Command(connection, transaction,
+            "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id, json_file) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT), $project, $file)");
+        var tenant = insert.Parameters.Add("$tenant", SqliteType.Text);
+        var id = insert.Parameters.Add("$id", SqliteType.Text);
+        var created = insert.Parameters.Add("$created", SqliteType.Text);
+        var title = insert.Parameters.Add("$title", SqliteType.Text);
+        var verdict = insert.Parameters.Add("$verdict", SqliteType.Text);
+        var json = insert.Parameters.Add("$json", SqliteType.Blob);
+        var project = insert.Parameters.Add("$project", SqliteType.Text);
+        var file = insert.Parameters.Add("$file", SqliteType.Text);
         var failed = new Exception?[batch.Count];
         for (var i = 0; i < batch.Count; i++)
         {
-            await Execute(connection, transaction, "SAVEPOINT report");
+            await savepoint.ExecuteNonQueryAsync();
             try
             {
-                await using var command = connection.CreateCommand();
-                command.Transaction = transaction;
-                command.CommandText = "INSERT INTO reports (tenant, id, created_at, title, verdict, json, project_id, json_file) VALUES ($tenant, $id, $created, $title, $verdict, CAST($json AS TEXT), $project, $file)";
                 var header = batch[i].Header;
-                command.Parameters.AddWithValue("$tenant", header.Tenant);
-                command.Parameters.AddWithValue("$id", header.Id);
-                command.Parameters.AddWithValue("$created", header.CreatedAt.UtcDateTime.ToString("O"));
-                command.Parameters.AddWithValue("$title", (object?)header.Title ?? DBNull.Value);
-                command.Parameters.AddWithValue("$verdict", header.Verdict);
-                command.Parameters.AddWithValue("$json", batch[i].Json);
-                command.Parameters.AddWithValue("$project", (object?)header.ProjectId ?? DBNull.Value);
-                command.Parameters.AddWithValue("$file", (object?)batch[i].JsonFile ?? DBNull.Value);
-                await command.ExecuteNonQueryAsync();
-                await Execute(connection, transaction, "RELEASE report");
+                tenant.Value = header.Tenant;
+                id.Value = header.Id;
+                created.Value = header.CreatedAt.UtcDateTime.ToString("O");
+                title.Value = (object?)header.Title ?? DBNull.Value;
+                verdict.Value = header.Verdict;
+                json.Value = batch[i].Json;
+                project.Value = (object?)header.ProjectId ?? DBNull.Value;
+                file.Value = (object?)batch[i].JsonFile ?? DBNull.Value;
+                await insert.ExecuteNonQueryAsync();
+                await release.ExecuteNonQueryAsync();
             }
             catch (SqliteException exception)
             {
                 failed[i] = exception;
-                await Execute(connection, transaction, "ROLLBACK TO report; RELEASE report");
+                await rollback.ExecuteNonQueryAsync();
             }
         }
         await transaction.CommitAsync();
@@ -96,12 +107,12 @@ internal sealed class SqliteGroupCommit(Func<CancellationToken, Task<SqliteConne
         }
     }
 
-    private static async Task Execute(SqliteConnection connection, SqliteTransaction transaction, string sql)
+    private static SqliteCommand Command(SqliteConnection connection, SqliteTransaction transaction, string sql)
     {
-        await using var command = connection.CreateCommand();
+        var command = connection.CreateCommand();
         command.Transaction = transaction;
         command.CommandText = sql;
-        await command.ExecuteNonQueryAsync();
+        return command;
     }
 
     private sealed record Pending(ReportHeader Header, byte[] Json, string? JsonFile, TaskCompletionSource Done);

@@ -44,6 +44,33 @@ public sealed class SqliteStreamingStoreTests : IDisposable
         Assert.Equal(filesBefore, Directory.GetFiles(ReportFolder));
     }
 
+    /// <summary>
+    /// Saves arriving together share commits (one prepared insert per batch, values rebound per report); a duplicate id
+    /// among them fails alone, and every other report of its batch is stored with its own bytes and title.
+    /// </summary>
+    [Fact]
+    public async Task Concurrent_saves_share_commits_and_a_duplicate_fails_alone()
+    {
+        var store = await StoreAsync();
+        await store.SaveAsync(new ReportHeader("t1", "taken", DateTimeOffset.UnixEpoch, "first", "pass"), new MemoryStream(Json(100, 'a')), CancellationToken.None);
+        var saves = Enumerable.Range(0, 60).Select(i => i == 30
+            ? store.SaveAsync(new ReportHeader("t1", "taken", DateTimeOffset.UnixEpoch, "second", "fail"), new MemoryStream(Json(100, 'b')), CancellationToken.None)
+            : store.SaveAsync(new ReportHeader("t1", $"r{i}", DateTimeOffset.UnixEpoch, i % 2 == 0 ? $"title {i}" : null, "pass"),
+                new MemoryStream(Json(200 + i, 'c')), CancellationToken.None)).ToList();
+        var outcomes = await Task.WhenAll(saves.Select(async save => { try { await save; return null; } catch (SqliteException e) { return e; } }));
+
+        Assert.Equal([30], outcomes.Select((e, i) => (e, i)).Where(o => o.e is not null).Select(o => o.i));
+        Assert.Equal(Json(100, 'a'), await ReadAllAsync(store, "taken"));
+        for (var i = 0; i < 60; i++)
+        {
+            if (i != 30)
+                Assert.Equal(Json(200 + i, 'c'), await ReadAllAsync(store, $"r{i}"));
+        }
+        var titles = await store.ListAsync(new ReportListQuery("t1", 100), CancellationToken.None);
+        Assert.Equal("title 58", titles.Items.Single(r => r.Id == "r58").Title);
+        Assert.Null(titles.Items.Single(r => r.Id == "r59").Title);
+    }
+
     [Fact]
     public async Task The_spool_is_published_without_a_copy_and_an_unsaved_one_leaves_nothing()
     {
