@@ -93,15 +93,14 @@ public static class BootstrapInterval
         int resamples, ulong seed, double tail)
     {
         int n = values.Length;
-        var sorted = ArrayPool<double>.Shared.Rent(n);
+        using var sorted = PooledScratch.CopyOf(values);
         var rank = ArrayPool<int>.Shared.Rent(n);
         var pairCounts = ArrayPool<int>.Shared.Rent(n * n);
         try
         {
-            values.CopyTo(sorted);
             for (int i = 0; i < n; i++)
                 rank[i] = i;
-            sorted.AsSpan(0, n).Sort(rank.AsSpan(0, n));
+            sorted.Span.Sort(rank.AsSpan(0, n));
             Array.Clear(pairCounts, 0, n * n);
 
             // The draws depend only on (n, resamples, seed), so their per-index counts are computed once per process and
@@ -113,13 +112,12 @@ public static class BootstrapInterval
                 var (atLower, atUpper) = OrderStatisticRanks(new DrawnTally(drawn, b * n, rank), n, lower, fraction);
                 pairCounts[(atLower * n) + atUpper]++;
             }
-            return DistinctEstimates.Bounds(sorted, n, pairCounts, lower, fraction, resamples, tail);
+            return DistinctEstimates.Bounds(sorted.Span, pairCounts, lower, fraction, resamples, tail);
         }
         finally
         {
             ArrayPool<int>.Shared.Return(pairCounts);
             ArrayPool<int>.Shared.Return(rank);
-            ArrayPool<double>.Shared.Return(sorted);
         }
     }
 
@@ -154,7 +152,7 @@ public static class BootstrapInterval
                     for (int i = 0; i < n; i++)
                         tally[positionOf[random.NextIndex(n)]]++;
                     var (atLower, atUpper) = OrderStatisticRanks(new RankTally(tally), n, lower, fraction);
-                    estimates[b] = Interpolate(sorted, n, atLower, atUpper, lower, fraction);
+                    estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
                 }
             };
         }
@@ -195,10 +193,10 @@ public static class BootstrapInterval
     }
 
     /// <summary>The type-7 interpolation between the order statistics found by <see cref="OrderStatisticRanks"/>.</summary>
-    internal static double Interpolate(double[] sorted, int count, int atLower, int atUpper, int lower, double fraction)
+    internal static double Interpolate(ReadOnlySpan<double> sorted, int atLower, int atUpper, int lower, double fraction)
     {
         double lowerValue = sorted[atLower];
-        if (fraction == 0.0 || lower + 1 >= count)
+        if (fraction == 0.0 || lower + 1 >= sorted.Length)
             return lowerValue;
         return lowerValue + (fraction * (sorted[atUpper] - lowerValue));
     }

@@ -10,13 +10,14 @@ namespace QaService.Core.Statistics;
 /// </summary>
 internal static class DistinctEstimates
 {
-    /// <param name="sorted">The sample in ascending order (first <paramref name="n"/> elements).</param>
+    /// <param name="sorted">The sample in ascending order (n values).</param>
     /// <param name="pairCounts">Resamples per rank pair, index atLower·n + atUpper (first n² elements).</param>
     /// <param name="resamples">Sum of the counts.</param>
     /// <param name="tail">Probability of each tail, (1 − level) / 2.</param>
-    public static (double Lower, double Upper) Bounds(double[] sorted, int n, int[] pairCounts, int lower, double fraction,
+    public static (double Lower, double Upper) Bounds(ReadOnlySpan<double> sorted, int[] pairCounts, int lower, double fraction,
         int resamples, double tail)
     {
+        int n = sorted.Length;
         int distinct = 0;
         foreach (int count in pairCounts.AsSpan(0, n * n))
             distinct += count > 0 ? 1 : 0;
@@ -28,7 +29,7 @@ internal static class DistinctEstimates
             {
                 if (pairCounts[pair] == 0)
                     continue;
-                estimates[j] = BootstrapInterval.Interpolate(sorted, n, pair / n, pair % n, lower, fraction);
+                estimates[j] = BootstrapInterval.Interpolate(sorted, pair / n, pair % n, lower, fraction);
                 counts[j++] = pairCounts[pair];
             }
             estimates.AsSpan(0, distinct).Sort(counts.AsSpan(0, distinct));
