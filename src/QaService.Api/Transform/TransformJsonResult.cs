@@ -46,34 +46,15 @@ internal sealed class TransformJsonResult(TransformResult result) : IResult
         }
         else
         {
-            // A window of blocks rendered side by side into pooled buffers, then written in order.
-            var blocks = (count + BlockPoints - 1) / BlockPoints;
-            var window = new PooledBufferWriter[Math.Min(blocks, 2 * Environment.ProcessorCount)];
-            try
-            {
-                for (var slot = 0; slot < window.Length; slot++)
-                    window[slot] = new PooledBufferWriter(BlockPoints * 64);
-                for (var first = 0; first < blocks; first += window.Length)
+            // Blocks rendered side by side into pooled buffers, then written in order.
+            await OrderedBlockRendering.WriteAsync((count + BlockPoints - 1) / BlockPoints,
+                (block, buffer) => format.Render(block * BlockPoints, Math.Min(count, (block + 1) * BlockPoints), buffer),
+                async bytes =>
                 {
-                    var inWindow = Math.Min(window.Length, blocks - first);
-                    Parallel.For(0, inWindow, slot =>
-                    {
-                        var start = (first + slot) * BlockPoints;
-                        format.Render(start, Math.Min(count, start + BlockPoints), window[slot]);
-                    });
-                    for (var slot = 0; slot < inWindow; slot++)
-                    {
-                        pipe.Write(window[slot].WrittenSpan);
-                        window[slot].Reset();
-                        await pipe.FlushAsync(httpContext.RequestAborted);
-                    }
-                }
-            }
-            finally
-            {
-                foreach (var buffer in window)
-                    buffer?.Dispose();
-            }
+                    pipe.Write(bytes.Span);
+                    await pipe.FlushAsync(httpContext.RequestAborted);
+                },
+                BlockPoints * 64);
         }
         pipe.Write(Tail());
         await pipe.FlushAsync(httpContext.RequestAborted);

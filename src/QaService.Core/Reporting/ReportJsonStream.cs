@@ -73,35 +73,9 @@ public static class ReportJsonStream
     }
 
     /// <summary>The residual objects, comma-separated, in list order; a window of batches is rendered at once on the thread pool.</summary>
-    private static async Task WriteResidualsAsync(IReadOnlyList<Residual> residuals, Stream destination, CancellationToken cancellationToken)
-    {
-        var batches = (residuals.Count + BatchResiduals - 1) / BatchResiduals;
-        var window = batches <= 1 ? 1 : Math.Min(batches, 2 * Environment.ProcessorCount);
-        var buffers = new PooledBufferWriter[window];
-        try
-        {
-            for (var slot = 0; slot < window; slot++)
-                buffers[slot] = new PooledBufferWriter();
-            for (var first = 0; first < batches; first += window)
-            {
-                var count = Math.Min(window, batches - first);
-                if (count == 1)
-                    Render(residuals, first, buffers[0]);
-                else
-                    Parallel.For(0, count, slot => Render(residuals, first + slot, buffers[slot]));
-                for (var slot = 0; slot < count; slot++)
-                {
-                    await destination.WriteAsync(buffers[slot].WrittenMemory, cancellationToken);
-                    buffers[slot].Reset();
-                }
-            }
-        }
-        finally
-        {
-            foreach (var buffer in buffers)
-                buffer?.Dispose();
-        }
-    }
+    private static Task WriteResidualsAsync(IReadOnlyList<Residual> residuals, Stream destination, CancellationToken cancellationToken) =>
+        OrderedBlockRendering.WriteAsync((residuals.Count + BatchResiduals - 1) / BatchResiduals,
+            (batch, buffer) => Render(residuals, batch, buffer), bytes => destination.WriteAsync(bytes, cancellationToken));
 
     private static void Render(IReadOnlyList<Residual> residuals, int batch, PooledBufferWriter buffer)
     {
