@@ -121,7 +121,8 @@ public sealed partial class TransverseMercator : IMapProjection
 
     /// <summary>
     /// Batch form of <see cref="Forward(double, double)"/>; allocation-free. Element i of the outputs is the
-    /// projection of element i of the inputs. Same units, domain and accuracy as the single-point method.
+    /// projection of element i of the inputs, and the same bits whatever else is in the batch or where element i sits
+    /// in it (see <see cref="ForwardEach"/>). Same units, domain and accuracy as the single-point method.
     /// </summary>
     /// <param name="latitudesDegrees">Latitudes, degrees.</param>
     /// <param name="longitudesDegrees">Longitudes, degrees; same length as <paramref name="latitudesDegrees"/>.</param>
@@ -130,6 +131,24 @@ public sealed partial class TransverseMercator : IMapProjection
     /// <exception cref="ArgumentException">Span lengths inconsistent.</exception>
     /// <exception cref="ArgumentOutOfRangeException">An input outside the domain (outputs before it are already written).</exception>
     public void Forward(ReadOnlySpan<double> latitudesDegrees, ReadOnlySpan<double> longitudesDegrees, Span<double> eastingsMetres, Span<double> northingsMetres)
+        => ForwardEach(latitudesDegrees, longitudesDegrees, eastingsMetres, northingsMetres, outsideAsNaN: false);
+
+    /// <summary>
+    /// As <see cref="Forward(ReadOnlySpan{double}, ReadOnlySpan{double}, Span{double}, Span{double})"/>, but a point
+    /// outside the domain (or not finite) gets NaN easting and northing instead of an error, and the rest are projected.
+    /// </summary>
+    /// <exception cref="ArgumentException">Span lengths inconsistent.</exception>
+    public void ForwardOrNaN(ReadOnlySpan<double> latitudesDegrees, ReadOnlySpan<double> longitudesDegrees, Span<double> eastingsMetres, Span<double> northingsMetres)
+        => ForwardEach(latitudesDegrees, longitudesDegrees, eastingsMetres, northingsMetres, outsideAsNaN: true);
+
+    /// <summary>
+    /// Where the vector kernel runs (TransverseMercator.Batch.cs), every point inside its domain goes through it, also
+    /// in a block shared with a point it declines and in the short tail (padded to a full block); only the declined
+    /// points (a pole, outside the domain, a longitude to reduce) take the scalar method. The kernel and the scalar
+    /// method differ by a few ulp, so this choice per point (not per position) is what keeps a point's bits
+    /// independent of how a large request is cut into ranges and blocks.
+    /// </summary>
+    private void ForwardEach(ReadOnlySpan<double> latitudesDegrees, ReadOnlySpan<double> longitudesDegrees, Span<double> eastingsMetres, Span<double> northingsMetres, bool outsideAsNaN)
     {
         if (longitudesDegrees.Length != latitudesDegrees.Length)
         {
@@ -141,25 +160,36 @@ public sealed partial class TransverseMercator : IMapProjection
             throw new ArgumentException("Output spans must be at least as long as the input spans.", nameof(eastingsMetres));
         }
 
-        // Blocks of four go through the vector kernel (TransverseMercator.Batch.cs); a block it declines (pole, outside the
-        // domain, longitude to reduce) and the tail go through the scalar method, which raises any error at its element.
-        int count = latitudesDegrees.Length;
-        int i = 0;
-        while (i < count)
+        if (UsesVectorKernel)
         {
-            if (VectorKernelAvailable)
-            {
-                i += ForwardVector(latitudesDegrees[i..], longitudesDegrees[i..count], eastingsMetres[i..], northingsMetres[i..]);
-            }
+            ForwardBlocks(latitudesDegrees, longitudesDegrees, eastingsMetres, northingsMetres, outsideAsNaN);
+            return;
+        }
 
-            for (int stop = Math.Min(i + System.Runtime.Intrinsics.Vector256<double>.Count, count); i < stop; i++)
-            {
-                ProjectedCoordinate en = Forward(latitudesDegrees[i], longitudesDegrees[i]);
-                eastingsMetres[i] = en.EastingMetres;
-                northingsMetres[i] = en.NorthingMetres;
-            }
+        for (int i = 0; i < latitudesDegrees.Length; i++)
+        {
+            ForwardScalarInto(latitudesDegrees[i], longitudesDegrees[i], out eastingsMetres[i], out northingsMetres[i], outsideAsNaN);
         }
     }
+
+    /// <summary>The scalar method for one element of a batch: an error, or NaN when <paramref name="outsideAsNaN"/>.</summary>
+    private void ForwardScalarInto(double latitudeDegrees, double longitudeDegrees, out double eastingMetres, out double northingMetres, bool outsideAsNaN)
+    {
+        if (outsideAsNaN && !InDomain(latitudeDegrees, longitudeDegrees))
+        {
+            eastingMetres = northingMetres = double.NaN;
+            return;
+        }
+
+        ProjectedCoordinate en = Forward(latitudeDegrees, longitudeDegrees);
+        eastingMetres = en.EastingMetres;
+        northingMetres = en.NorthingMetres;
+    }
+
+    /// <summary>Whether <see cref="Forward(double, double)"/> accepts the point (the same tests, without the throw).</summary>
+    private bool InDomain(double latitudeDegrees, double longitudeDegrees)
+        => Math.Abs(latitudeDegrees) <= AngleMath.QuarterTurnDegrees && double.IsFinite(longitudeDegrees)
+           && Math.Abs(AngleMath.LongitudeDifferenceDegrees(longitudeDegrees, CentralMeridianDegrees)) < MaxLongitudeOffsetDegrees;
 
     /// <summary>
     /// Inverse projection: grid coordinates → geodetic latitude and longitude (Karney 2011 §5: β series, then

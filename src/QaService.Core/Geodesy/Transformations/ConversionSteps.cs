@@ -55,10 +55,10 @@ public sealed class ForwardProjectionStep(IMapProjection projection, LinearUnit 
     }
 
     /// <summary>
-    /// Transverse Mercator through its batch (vectorised) forward method, a block at a time; a block holding a point
-    /// outside the domain is redone point by point, so such points alone become NaN.
+    /// Transverse Mercator through its batch (vectorised) forward method, a block at a time; a point outside the domain
+    /// becomes NaN on its own, and every other point gets the same bits wherever it sits in the request.
     /// </summary>
-    private void ApplyBatch(TransverseMercator transverseMercator, CoordinateBuffer points, double k)
+    private static void ApplyBatch(TransverseMercator transverseMercator, CoordinateBuffer points, double k)
     {
         var eastings = ArrayPool<double>.Shared.Rent(BatchPoints);
         var northings = ArrayPool<double>.Shared.Rent(BatchPoints);
@@ -67,16 +67,7 @@ public sealed class ForwardProjectionStep(IMapProjection projection, LinearUnit 
             for (var start = 0; start < points.Count; start += BatchPoints)
             {
                 var length = Math.Min(BatchPoints, points.Count - start);
-                try
-                {
-                    transverseMercator.Forward(points.First.AsSpan(start, length), points.Second.AsSpan(start, length), eastings, northings);
-                }
-                catch (ArgumentOutOfRangeException)
-                {
-                    ApplyPointByPoint(points, start, length, k);
-                    continue;
-                }
-
+                transverseMercator.ForwardOrNaN(points.First.AsSpan(start, length), points.Second.AsSpan(start, length), eastings, northings);
                 for (var i = 0; i < length; i++)
                 {
                     points.First[start + i] = eastings[i] * k;
