@@ -41,7 +41,11 @@ internal static class ReportSerialisation
         }
     }
 
-    /// <summary>The serialised bytes when <paramref name="json"/> is an in-memory report from <see cref="SerialiseAsync"/> read from its start.</summary>
+    /// <summary>
+    /// The stream's whole content as its own array, without a copy, when it is a memory stream at position 0 whose
+    /// visible buffer is exactly one whole array (as <see cref="SerialiseAsync"/> returns a small report); otherwise null,
+    /// and the caller reads the stream. Valid for any such stream: the content then is that array, byte for byte.
+    /// </summary>
     public static byte[]? WholeArrayOf(Stream json) =>
         json is MemoryStream { Position: 0 } memory && memory.TryGetBuffer(out var segment) && segment.Offset == 0
             && segment.Count == segment.Array!.Length ? segment.Array : null;
