@@ -78,7 +78,7 @@ public sealed class SqliteTitleSearchTests
     }
 
     [Fact]
-    public async Task Deleted_and_purged_reports_leave_the_index_and_an_older_database_is_indexed_at_start()
+    public async Task New_and_deleted_reports_and_rowids_given_again_keep_the_index_right_and_an_older_database_is_indexed_at_start()
     {
         var path = Path.Combine(Path.GetTempPath(), $"qaservice-titles-{Guid.NewGuid():N}.db");
         using (var first = new QaServiceFactory(path))
@@ -92,18 +92,38 @@ public sealed class SqliteTitleSearchTests
             Assert.Empty(await AllIdsAsync(client, "valves"));
         }
 
+        // Rowids handed out again after the newest rows go (SQLite gives max(rowid) + 1): deleting the indexed mark's row,
+        // then a row below it, then the mark's row again, each followed by a new report that must be found.
+        using (var third = new QaServiceFactory(path))
+        {
+            var client = third.CreateClient();
+            Assert.Equal(["keep"], await AllIdsAsync(client, "larch lane"));
+            Insert(third, [(Tenants.Local, "n1", 10, "Larch Lane n1"), (Tenants.Local, "n2", 11, "Larch Lane n2"), (Tenants.Local, "n3", 12, "Larch Lane n3")]);
+            Assert.Equal(["n3", "n2", "n1", "keep"], await AllIdsAsync(client, "larch lane"));
+            Assert.Equal(System.Net.HttpStatusCode.NoContent, (await client.DeleteAsync("/v1/assessments/n2")).StatusCode);
+            Assert.Equal(System.Net.HttpStatusCode.NoContent, (await client.DeleteAsync("/v1/assessments/n3")).StatusCode);
+            Insert(third, [(Tenants.Local, "n4", 13, "Larch Lane n4")]);
+            Assert.Equal(["n4", "n1", "keep"], await AllIdsAsync(client, "larch lane"));
+            Assert.Equal(System.Net.HttpStatusCode.NoContent, (await client.DeleteAsync("/v1/assessments/n4")).StatusCode);
+            Insert(third, [(Tenants.Local, "n5", 14, "Larch Lane n5")]);
+            Assert.Equal(System.Net.HttpStatusCode.NoContent, (await client.DeleteAsync("/v1/assessments/n5")).StatusCode);
+            Insert(third, [(Tenants.Local, "n6", 15, "Larch Lane n6")]);
+            Assert.Equal(["n6", "n1", "keep"], await AllIdsAsync(client, "larch lane"));
+            Assert.Empty(await AllIdsAsync(client, "lane n4"));
+        }
+
         // A database from before the index (schema version 9) with a report in it.
         using (var connection = new SqliteConnection($"Data Source={path};Pooling=False"))
         {
             connection.Open();
             using var command = connection.CreateCommand();
-            command.CommandText = "DROP TRIGGER report_titles_insert; DROP TRIGGER report_titles_delete; DROP TRIGGER report_titles_update; DROP TABLE report_titles; PRAGMA user_version = 9;"
+            command.CommandText = "DROP TRIGGER report_titles_delete; DROP TRIGGER report_titles_update; DROP TABLE report_titles; DROP TABLE report_titles_state; PRAGMA user_version = 9;"
                 + $"INSERT INTO reports (tenant, id, created_at, title, verdict, json) VALUES ('{Tenants.Local}', 'old', '{T0.UtcDateTime:O}', 'Larch Lane poles', 'pass', '{{}}');";
             command.ExecuteNonQuery();
         }
         using var second = new QaServiceFactory(path);
         var again = second.CreateClient();
-        Assert.Equal(["keep", "old"], await AllIdsAsync(again, "larch lane"));
+        Assert.Equal(["n6", "n1", "keep", "old"], await AllIdsAsync(again, "larch lane"));
         Assert.Equal(["old"], await AllIdsAsync(again, "lane poles"));
     }
 }

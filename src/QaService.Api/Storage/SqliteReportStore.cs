@@ -246,10 +246,11 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     /// decides. Null when the text is shorter than a trigram or matches more than <see cref="TitleCandidatesLimit"/>
     /// titles: then the listing index is walked as before, and with that many matches it meets a page of them soon.
     /// </summary>
-    private static async Task<string?> TitleCandidatesAsync(SqliteConnection connection, string text, CancellationToken cancellationToken)
+    private async Task<string?> TitleCandidatesAsync(SqliteConnection connection, string text, CancellationToken cancellationToken)
     {
         if (text.EnumerateRunes().Count() < TrigramLength)
             return null;
+        await CatchUpTitleIndexAsync(connection, cancellationToken);
         await using var command = connection.CreateCommand();
         command.CommandText = "SELECT count(*), json_group_array(rowid) FROM (SELECT rowid FROM report_titles WHERE report_titles MATCH $phrase LIMIT $limit)";
         command.Parameters.AddWithValue("$phrase", "\"" + text.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"");
@@ -257,6 +258,42 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         await using var reader = await command.ExecuteReaderAsync(cancellationToken);
         await reader.ReadAsync(cancellationToken);
         return reader.GetInt64(0) <= TitleCandidatesLimit ? reader.GetString(1) : null;
+    }
+
+    /// <summary>
+    /// Adds the reports stored since the last search to the title index (migration 10), in one transaction under the write
+    /// lock; a look at two index ends decides whether there are any, so a search with none to add writes nothing.
+    /// </summary>
+    private async Task CatchUpTitleIndexAsync(SqliteConnection connection, CancellationToken cancellationToken)
+    {
+        const string behind = "SELECT (SELECT indexed_through FROM report_titles_state) < coalesce((SELECT max(rowid) FROM reports), 0)";
+        if (!await IsTrueAsync(behind))
+            return;
+        await writeLock.WaitAsync(cancellationToken);
+        try
+        {
+            await using var transaction = connection.BeginTransaction(deferred: false);
+            await using var command = connection.CreateCommand();
+            command.Transaction = transaction;
+            command.CommandText = """
+                INSERT INTO report_titles (rowid, title)
+                SELECT rowid, title FROM reports WHERE rowid > (SELECT indexed_through FROM report_titles_state);
+                UPDATE report_titles_state SET indexed_through = (SELECT coalesce(max(rowid), 0) FROM reports);
+                """;
+            await command.ExecuteNonQueryAsync(cancellationToken);
+            await transaction.CommitAsync(cancellationToken);
+        }
+        finally
+        {
+            writeLock.Release();
+        }
+
+        async Task<bool> IsTrueAsync(string sql)
+        {
+            await using var check = connection.CreateCommand();
+            check.CommandText = sql;
+            return Convert.ToInt64(await check.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture) != 0;
+        }
     }
 
     public async Task<bool> DeleteAsync(string tenant, string id, CancellationToken cancellationToken) =>
