@@ -266,9 +266,12 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
     /// </summary>
     private async Task CatchUpTitleIndexAsync(SqliteConnection connection, CancellationToken cancellationToken)
     {
-        const string behind = "SELECT (SELECT indexed_through FROM report_titles_state) < coalesce((SELECT max(rowid) FROM reports), 0)";
-        if (!await IsTrueAsync(behind))
-            return;
+        await using (var check = connection.CreateCommand())
+        {
+            check.CommandText = "SELECT (SELECT indexed_through FROM report_titles_state) < coalesce((SELECT max(rowid) FROM reports), 0)";
+            if (Convert.ToInt64(await check.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture) == 0)
+                return;
+        }
         await writeLock.WaitAsync(cancellationToken);
         try
         {
@@ -286,13 +289,6 @@ internal sealed class SqliteReportStore(IOptions<StorageOptions> options) : IRep
         finally
         {
             writeLock.Release();
-        }
-
-        async Task<bool> IsTrueAsync(string sql)
-        {
-            await using var check = connection.CreateCommand();
-            check.CommandText = sql;
-            return Convert.ToInt64(await check.ExecuteScalarAsync(cancellationToken), System.Globalization.CultureInfo.InvariantCulture) != 0;
         }
     }
 

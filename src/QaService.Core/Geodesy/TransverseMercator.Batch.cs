@@ -79,24 +79,20 @@ public sealed partial class TransverseMercator
         var dLon = Vector256.Create(longitudesDegrees) - Vector256.Create(CentralMeridianDegrees);
         var inside = Vector256.LessThan(Vector256.Abs(lat), quarterTurn) & Vector256.LessThan(Vector256.Abs(dLon), quarterTurn);
         uint insideLanes = inside.ExtractMostSignificantBits();
-        uint allLanes = (1u << Vector256<double>.Count) - 1;
-        if (insideLanes != allLanes)
+        if (insideLanes == (1u << Vector256<double>.Count) - 1)
         {
-            lat = Vector256.ConditionalSelect(inside, lat, Vector256<double>.Zero);
-            dLon = Vector256.ConditionalSelect(inside, dLon, Vector256<double>.Zero);
+            var (allEastings, allNorthings) = Kernel(lat, dLon);
+            allEastings.CopyTo(eastingsMetres);
+            allNorthings.CopyTo(northingsMetres);
+            return;
         }
 
-        var (easting, northing) = Kernel(lat, dLon);
-        if (insideLanes != allLanes)
-        {
-            // Declined lanes keep what the output held until the scalar method writes them (or raises).
-            easting = Vector256.ConditionalSelect(inside, easting, Vector256.Create(eastingsMetres));
-            northing = Vector256.ConditionalSelect(inside, northing, Vector256.Create(northingsMetres));
-        }
-
-        easting.CopyTo(eastingsMetres);
-        northing.CopyTo(northingsMetres);
-        for (int lane = 0; insideLanes != allLanes && lane < Vector256<double>.Count; lane++)
+        // Declined lanes go through the kernel at the origin, keep what the output held, and are then written (or
+        // raised) by the scalar method in lane order.
+        var (easting, northing) = Kernel(Vector256.ConditionalSelect(inside, lat, Vector256<double>.Zero), Vector256.ConditionalSelect(inside, dLon, Vector256<double>.Zero));
+        Vector256.ConditionalSelect(inside, easting, Vector256.Create(eastingsMetres)).CopyTo(eastingsMetres);
+        Vector256.ConditionalSelect(inside, northing, Vector256.Create(northingsMetres)).CopyTo(northingsMetres);
+        for (int lane = 0; lane < Vector256<double>.Count; lane++)
         {
             if ((insideLanes & (1u << lane)) == 0)
             {
