@@ -1,5 +1,4 @@
 using System.Buffers;
-using System.Collections.Concurrent;
 
 namespace QaService.Core.Statistics;
 
@@ -64,7 +63,7 @@ public static class BootstrapInterval
         double h = (n - 1) * quantile;
         int lower = Math.Min((int)Math.Floor(h), n - 1);
         double fraction = h - lower;
-        if (n <= PairCountingLimit)
+        if (n <= ResampleColumns.MaximumSample)
             return FromPairCounts(values, lower, fraction, resamples, seed, tail);
 
         var sorted = values.ToArray();
@@ -104,14 +103,9 @@ public static class BootstrapInterval
             Array.Clear(pairCounts, 0, n * n);
 
             // The draws depend only on (n, resamples, seed), so their per-index counts are computed once per process and
-            // shared (exactly the same draws, in the same order, as drawing them here); the counts of the ranks the walk
-            // visits are read straight from that table.
-            var drawn = DrawCounts(n, resamples, seed);
-            for (int b = 0; b < resamples; b++)
-            {
-                var (atLower, atUpper) = OrderStatisticRanks(new DrawnTally(drawn, b * n, rank), n, lower, fraction);
-                pairCounts[(atLower * n) + atUpper]++;
-            }
+            // shared (exactly the same draws, in the same order, as drawing them here).
+            var columns = ResampleColumns.Draws(n, resamples, seed);
+            ResampleColumns.CountRankPairs(columns, resamples, rank.AsSpan(0, n), n, lower, fraction != 0.0 && lower + 1 < n, pairCounts);
             return DistinctEstimates.Bounds(sorted.Span, pairCounts, lower, fraction, resamples, tail);
         }
         finally
@@ -151,45 +145,12 @@ public static class BootstrapInterval
                     Array.Clear(tally);
                     for (int i = 0; i < n; i++)
                         tally[positionOf[random.NextIndex(n)]]++;
-                    var (atLower, atUpper) = OrderStatisticRanks(new RankTally(tally), n, lower, fraction);
+                    var (atLower, atUpper) = OrderStatisticRanks(tally, n, lower, fraction);
                     estimates[b] = Interpolate(sorted, atLower, atUpper, lower, fraction);
                 }
             };
         }
         ParallelWork.Invoke(worthIt, work);
-    }
-
-    /// <summary>
-    /// Largest sample whose resamples are counted per rank pair (n² counters, 16 KB at the limit) and whose draws are
-    /// cached (n·resamples bytes, 128 KB at the limit with the default 2,000 resamples; a count per index fits a byte).
-    /// </summary>
-    private const int PairCountingLimit = 64;
-
-    /// <summary>Most (n, resamples, seed) draw tables kept (at most ~8 MB with the default resamples).</summary>
-    private const int DrawCacheEntries = 64;
-
-    private static readonly ConcurrentDictionary<(int N, int Resamples, ulong Seed), byte[]> DrawCache = new();
-
-    /// <summary>
-    /// For resample b and sample index i, element b·n + i: how many of resample b's n draws picked index i, drawn with
-    /// <see cref="SplitMix64.NextIndex"/> from <paramref name="seed"/> in the order of the resampling loop. Cached.
-    /// </summary>
-    private static byte[] DrawCounts(int n, int resamples, ulong seed)
-    {
-        var key = (n, resamples, seed);
-        if (DrawCache.TryGetValue(key, out var cached))
-            return cached;
-        var random = new SplitMix64(seed);
-        var counts = new byte[n * resamples];
-        for (int b = 0, offset = 0; b < resamples; b++, offset += n)
-        {
-            for (int i = 0; i < n; i++)
-                counts[offset + random.NextIndex(n)]++;
-        }
-
-        if (DrawCache.Count < DrawCacheEntries)
-            DrawCache.TryAdd(key, counts);
-        return counts;
     }
 
     /// <summary>The type-7 interpolation between the order statistics found by <see cref="OrderStatisticRanks"/>.</summary>
@@ -206,8 +167,7 @@ public static class BootstrapInterval
     /// as counts per rank (the second equals the first when no interpolation is needed). Upper quantiles walk the tally
     /// down from the largest value (for the 95th percentile of 24 values, 3 steps instead of 22).
     /// </summary>
-    private static (int AtLower, int AtUpper) OrderStatisticRanks<TTally>(TTally tally, int n, int lower, double fraction)
-        where TTally : struct, ITally
+    private static (int AtLower, int AtUpper) OrderStatisticRanks(int[] tally, int n, int lower, double fraction)
     {
         bool interpolate = fraction != 0.0 && lower + 1 < n;
         if (2 * lower < n)
@@ -238,24 +198,6 @@ public static class BootstrapInterval
         while (above + tally[top] <= n - 1 - lower)
             above += tally[top--];
         return (top, top);
-    }
-
-    /// <summary>How many members of one resample sit at each rank of the sorted sample.</summary>
-    private interface ITally
-    {
-        int this[int rank] { get; }
-    }
-
-    /// <summary>Counts held per rank.</summary>
-    private readonly struct RankTally(int[] counts) : ITally
-    {
-        public int this[int rank] => counts[rank];
-    }
-
-    /// <summary>Counts of resample b read from the shared per-index draw table through the sort permutation.</summary>
-    private readonly struct DrawnTally(byte[] drawn, int offset, int[] indexAtRank) : ITally
-    {
-        public int this[int rank] => drawn[offset + indexAtRank[rank]];
     }
 
     /// <summary>The sample interpolated (type-7 style) at rank (n − 1)·quantile + z·√(n·quantile·(1 − quantile)), clamped to the sample.</summary>

@@ -51,6 +51,24 @@ public sealed class BootstrapTallyTests
     }
 
     /// <summary>
+    /// The small-sample path walks many resamples at once in vector lanes: resample counts that leave a part-filled last
+    /// vector (101, 131, 2,001), the service's default 2,000, and sample sizes around the lane widths and the path's limit.
+    /// </summary>
+    [Theory]
+    [InlineData(3, 101)]
+    [InlineData(16, 131)]
+    [InlineData(24, BootstrapInterval.DefaultResamples)]
+    [InlineData(31, 2001)]
+    [InlineData(33, 100)]
+    [InlineData(63, 257)]
+    public void Resamples_walked_in_vector_lanes_give_the_textbook_bounds(int n, int resamples)
+    {
+        var values = Sample(n, 41);
+        foreach (var (quantile, level, seed) in new[] { (0.95, 0.95, 1UL), (0.9, 0.9, 2UL), (0.5, 0.95, 3UL), (0.2, 0.8, 4UL), (1.0, 0.95, 5UL), (0.0, 0.9, 6UL) })
+            Assert.Equal(Textbook(values, quantile, level, resamples, seed), BootstrapInterval.OfQuantile(values, quantile, level, resamples, seed));
+    }
+
+    /// <summary>
     /// Enough draws (resamples × n above a million) that blocks of resamples are drawn side by side, each from its own
     /// generator jumped to the block's first draw: the bounds must still be those of one generator run through in order.
     /// </summary>
