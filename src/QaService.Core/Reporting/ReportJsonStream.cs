@@ -58,8 +58,11 @@ public static class ReportJsonStream
     {
         var frame = new PooledBufferWriter();
         // Default writer options are the serializer's for ReportJson.Write (default encoder, not indented): the same bytes.
+        // Through the context's own type info, not ReportJson.Write: options with a converter, or a combined resolver, turn
+        // off the generated direct writer. The frame holds no residual, the one type ReportJson.Write converts otherwise;
+        // ReportJsonIdentityTests check whole reports byte for byte against the reflection serializer.
         using var writer = new Utf8JsonWriter(frame);
-        JsonSerializer.Serialize(writer, report with { Residuals = [] }, ReportJson.Write);
+        JsonSerializer.Serialize(writer, report with { Residuals = [] }, ReportJsonContext.Default.AssessmentReport);
         return frame;
     }
 
