@@ -89,13 +89,14 @@ public sealed class OffsetCircleTests
     /// Newton's method converges quadratically from its start (Press et al., Numerical Recipes, 3rd ed., §9.4), so a
     /// handful of quadratures find each radius. A step that rounded onto the point just evaluated was once taken as
     /// leaving the bracket and sent the search into about twenty bisections (25 quadratures for CEP of μ = (0.3, 0.15) m,
-    /// σ = (1, 0.8) m, ρ = 0.2). Over a sweep of offsets, axis ratios and correlations: at most 9 quadratures, and the
-    /// radius still holds p to the probability's tolerance.
+    /// σ = (1, 0.8) m, ρ = 0.2). The search starts from a two-moment chi-square fit (Patnaik 1949) and ends on a Newton
+    /// step below 1e-7 σ. Over a sweep of offsets, axis ratios and correlations: at most 6 quadratures and 3.5 on average
+    /// (measured: 4 and 3.11; from the circular-normal start 7 and 4.97), and the radius still holds p.
     /// </summary>
     [Fact]
     public void Each_offset_radius_takes_a_handful_of_quadratures()
     {
-        int most = 0;
+        int most = 0, total = 0, count = 0;
         foreach (double mu in new[] { 0.0, 0.05, 0.3, 1.0, 3.0 })
             foreach (double q in new[] { 0.1, 0.5, 0.8, 1.0 })
                 foreach (double rho in new[] { -0.6, 0.0, 0.2 })
@@ -104,8 +105,11 @@ public sealed class OffsetCircleTests
                         var distribution = BivariateNormal.FromSigmas(1.0, q, rho, mu, mu / 2.0);
                         double radius = OffsetErrorRadius.Circular(p, distribution, out int evaluations);
                         most = Math.Max(most, evaluations);
+                        total += evaluations;
+                        count++;
                         Assert.Equal(p, OffsetCircleProbability.Probability(radius, distribution), 1e-9);
                     }
-        Assert.InRange(most, 1, 9);
+        Assert.InRange(most, 1, 6);
+        Assert.InRange((double)total / count, 1.0, 3.5);
     }
 }
