@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text.Json;
 using QaService.Core.Assessment;
 using QaService.Core.Reporting;
+using QaService.Core.Tests.Transform;
 using QaService.Core.Transform;
 
 namespace QaService.Core.Tests.Assessment;
@@ -33,9 +34,9 @@ public sealed class PointRecordJsonConverterTests
         {
             var fields = new List<string>();
             foreach (var name in Numbers.Where(_ => random.Next(3) == 0))
-                fields.Add($"\"{name}\": {(random.Next(10) == 0 ? "null" : ((random.NextDouble() - 0.5) * Math.Pow(10, random.Next(-3, 8))).ToString(random.Next(4) == 0 ? "E3" : "R", CultureInfo.InvariantCulture))}");
+                fields.Add($"\"{TransformPointJsonConverterTests.Spelled(name, random)}\": {(random.Next(10) == 0 ? "null" : ((random.NextDouble() - 0.5) * Math.Pow(10, random.Next(-3, 8))).ToString(random.Next(4) == 0 ? "E3" : "R", CultureInfo.InvariantCulture))}");
             foreach (var name in Texts.Where(_ => random.Next(3) == 0))
-                fields.Add($"\"{name}\": {(random.Next(10) == 0 ? "null" : JsonSerializer.Serialize("v\u00e9\"" + random.Next(100)))}");
+                fields.Add($"\"{TransformPointJsonConverterTests.Spelled(name, random)}\": {(random.Next(10) == 0 ? "null" : JsonSerializer.Serialize("v\u00e9\"" + random.Next(100)))}");
             if (random.Next(3) == 0)
                 fields.Add($"\"time\": \"{new DateTimeOffset(2026, 5, 1, 8, 0, 0, TimeSpan.FromHours(random.Next(-3, 4))).AddSeconds(random.Next(86_400)):O}\"");
             return "{" + string.Join(", ", fields.OrderBy(_ => random.Next())) + "}";
