@@ -66,12 +66,18 @@ public sealed class BiasCheck : IDataCheck
         return new CheckResult(Id, fail ? CheckStatus.Fail : CheckStatus.Warn, message, measured, threshold, "F");
     }
 
+    /// <summary>Two-sided critical t at <see cref="SignificanceLevel"/> per degrees of freedom (MathNet StudentT.InvCDF), kept per count.</summary>
+    private static readonly BoundedMemo<int> CriticalT = new(freedom => StudentT.InvCDF(0, 1, freedom, 1 - SignificanceLevel / 2), MostKeptCounts);
+
+    /// <summary>Counts whose critical values are kept (about 40 bytes each).</summary>
+    private const int MostKeptCounts = 4096;
+
     private static VerticalTest TTest(double[] values)
     {
         var n = values.Length;
         var mean = values.Average();
         var sd = Math.Sqrt(values.Sum(v => (v - mean) * (v - mean)) / (n - 1));
-        var critical = StudentT.InvCDF(0, 1, n - 1, 1 - SignificanceLevel / 2);
+        var critical = CriticalT[n - 1];
         var se = sd / Math.Sqrt(n);
         var t = se > 0 ? mean / se : (mean == 0 ? 0 : Math.Sign(mean) * double.MaxValue);
         return new VerticalTest(n, mean, t, critical, Math.Abs(t) > critical);

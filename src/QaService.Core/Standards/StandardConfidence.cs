@@ -74,8 +74,12 @@ public static class StandardConfidence
     public static double ShareUpperBound(double share, int n, double level)
     {
         int k = (int)Math.Round(share * n);
-        return k >= n ? 1.0 : Beta.InvCDF(k + 1, n - k, level);
+        return k >= n ? 1.0 : ClopperPearsonUpper[(k, n, level)];
     }
+
+    /// <summary>Beta(k + 1, n − k) quantile at the level (MathNet Beta.InvCDF, a root search), kept per (k, n, level).</summary>
+    private static readonly BoundedMemo<(int K, int N, double Level)> ClopperPearsonUpper =
+        new(key => Beta.InvCDF(key.K + 1, key.N - key.K, key.Level), mostEntries: 16_384);
 
     /// <summary>The values without a copy when they already sit in an array or list (a copy of 400,000 is a large-object allocation).</summary>
     private static ReadOnlySpan<double> AsSpan(IReadOnlyList<double> values) => values switch

@@ -24,6 +24,10 @@ public sealed record HotellingResult(int N, double MeanE, double MeanN, double T
 /// </summary>
 public static class HotellingTest
 {
+    /// <summary>F(2, ν) quantile at 1 − α (MathNet FisherSnedecor), kept per (ν, α): it depends only on the count.</summary>
+    private static readonly BoundedMemo<(int Freedom, double Alpha)> CriticalF =
+        new(key => new FisherSnedecor(2, key.Freedom).InverseCumulativeDistribution(1.0 - key.Alpha), mostEntries: 4096);
+
     /// <summary>Runs the test at significance <paramref name="alpha"/>; null when n &lt; 3 or S is singular.</summary>
     /// <param name="east">First components (e.g. dE, metres).</param>
     /// <param name="north">Second components (e.g. dN, metres), same length.</param>
@@ -52,6 +56,6 @@ public static class HotellingTest
         double tSquared = n * quadratic;
         double f = (n - 2.0) / (2.0 * (n - 1.0)) * tSquared;
         var distribution = new FisherSnedecor(2, n - 2);
-        return new HotellingResult(n, meanE, meanN, tSquared, f, distribution.InverseCumulativeDistribution(1.0 - alpha), 1.0 - distribution.CumulativeDistribution(f));
+        return new HotellingResult(n, meanE, meanN, tSquared, f, CriticalF[(n - 2, alpha)], 1.0 - distribution.CumulativeDistribution(f));
     }
 }
