@@ -18,7 +18,7 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
     private static readonly string[] Names =
         ["id", "mark", "lat", "lon", "e", "n", "x", "y", "z", "h", "sigmaH", "sigmaV", "time", "featureClass", "crew", "receiver", "hdop", "quality", "vE", "vN", "vU"];
 
-    private static readonly byte[][] Utf8Names = PointFieldReading.Utf8(Names);
+    private static readonly FieldNameTable Fields = new(Names);
 
     private enum Kind { Text, Number, Time }
 
@@ -49,7 +49,7 @@ public sealed class PointRecordJsonConverter : JsonConverter<PointRecord>
         DateTimeOffset? time = null;
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {
-            var field = PointFieldReading.FieldOf(ref reader, Names, Utf8Names);
+            var field = Fields.IndexOf(ref reader);
             if (field < 0)
                 throw PointFieldReading.Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
             if (seen[field])

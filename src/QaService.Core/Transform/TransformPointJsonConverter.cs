@@ -40,7 +40,7 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
         present.Clear();
         while (reader.Read() && reader.TokenType == JsonTokenType.PropertyName)
         {
-            var field = PointFieldReading.FieldOf(ref reader, Names, Utf8Names);
+            var field = Fields.IndexOf(ref reader);
             if (field < 0)
                 throw PointFieldReading.Failure($"The JSON property '{reader.GetString()}' could not be mapped to a point.", reader.GetString()!);
             if (seen[field])
@@ -73,5 +73,5 @@ public sealed class TransformPointJsonConverter : JsonConverter<TransformPoint>
     /// <summary>Field names in <see cref="TransformPoint"/> constructor order.</summary>
     internal static readonly string[] Names = ["lat", "lon", "e", "n", "x", "y", "z", "h"];
 
-    private static readonly byte[][] Utf8Names = PointFieldReading.Utf8(Names);
+    private static readonly FieldNameTable Fields = new(Names);
 }

@@ -21,13 +21,15 @@ public sealed record AreaOfUse(string Name, double SouthDegrees, double NorthDeg
     {
         double dLat = latitudeDegrees < SouthDegrees ? SouthDegrees - latitudeDegrees
             : latitudeDegrees > NorthDegrees ? latitudeDegrees - NorthDegrees : 0;
-        double lon = Math.IEEERemainder(longitudeDegrees, AngleMath.FullTurnDegrees);
-        double width = Math.IEEERemainder(EastDegrees - WestDegrees, AngleMath.FullTurnDegrees);
+        double lon = AngleMath.ReduceToHalfTurn(longitudeDegrees);
+        double width = AngleMath.ReduceToHalfTurn(EastDegrees - WestDegrees);
         if (width <= 0)
             width += AngleMath.FullTurnDegrees;
         double fromWest = lon - WestDegrees;
         fromWest -= AngleMath.FullTurnDegrees * Math.Floor(fromWest / AngleMath.FullTurnDegrees); // [0, 360)
         double dLon = fromWest <= width ? 0 : Math.Min(fromWest - width, AngleMath.FullTurnDegrees - fromWest);
+        if (dLon == 0 && !double.IsNaN(latitudeDegrees))
+            return dLat; // inside in longitude (every point of a batch that belongs there): no cosine needed
         double cosLat = Math.Cos(Math.Clamp(latitudeDegrees, -AngleMath.QuarterTurnDegrees, AngleMath.QuarterTurnDegrees) * AngleMath.RadiansPerDegree);
         return Math.Max(dLat, dLon * cosLat);
     }
