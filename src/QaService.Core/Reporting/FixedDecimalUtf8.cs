@@ -1,5 +1,3 @@
-using System.Buffers.Text;
-
 namespace QaService.Core.Reporting;
 
 /// <summary>
@@ -22,6 +20,13 @@ public static class FixedDecimalUtf8
     /// <summary>2^53: above it not every integer is a double, so the scaled value would not be exact.</summary>
     private const double LargestExactInteger = 9_007_199_254_740_992.0;
 
+    /// <summary>Digits of the largest units value (below 2^53, 16 digits), rounded up to whole pairs.</summary>
+    private const int MostDigits = 16;
+
+    /// <summary>"00", "01", …, "99" as ASCII, two bytes a pair.</summary>
+    private static ReadOnlySpan<byte> DigitPairs =>
+        "00010203040506070809101112131415161718192021222324252627282930313233343536373839404142434445464748495051525354555657585960616263646566676869707172737475767778798081828384858687888990919293949596979899"u8;
+
     private static readonly long[] PowersOfTen = [.. Enumerable.Range(0, MaximumDecimals + 1).Select(d => (long)Math.Pow(10, d))];
 
     public static bool TryFormat(double value, int decimals, Span<byte> destination, out int bytesWritten)
@@ -32,33 +37,40 @@ public static class FixedDecimalUtf8
         var scaled = Math.Round(value * PowersOfTen[decimals], MidpointRounding.AwayFromZero);
         if (!(Math.Abs(scaled) < LargestExactInteger) || destination.Length < MaximumBytes)
             return false;
-        var units = (long)scaled;
+        var units = (ulong)Math.Abs(scaled);
         var position = 0;
-        if (units < 0)
-        {
+        if (units != 0 && scaled < 0)
             destination[position++] = (byte)'-';
-            units = -units;
-        }
-        var whole = units / PowersOfTen[decimals];
-        var fraction = units % PowersOfTen[decimals];
-        Utf8Formatter.TryFormat(whole, destination[position..], out var wholeBytes);
-        position += wholeBytes;
-        if (fraction != 0)
+
+        // All digits of the units, right to left, two at a time (a division by the constant 100 is a multiplication);
+        // then at least decimals + 1 of them, so that 0.000123 has its leading zeros.
+        Span<byte> digits = stackalloc byte[MostDigits];
+        var first = MostDigits;
+        do
         {
-            var digits = decimals;
-            while (fraction % 10 == 0)
-            {
-                fraction /= 10;
-                digits--;
-            }
+            var pair = (int)(units % 100);
+            units /= 100;
+            first -= 2;
+            digits[first] = DigitPairs[2 * pair];
+            digits[first + 1] = DigitPairs[(2 * pair) + 1];
+        }
+        while (units != 0);
+        if (digits[first] == (byte)'0' && first < MostDigits - 1)
+            first++;
+        while (MostDigits - first <= decimals)
+            digits[--first] = (byte)'0';
+
+        var point = MostDigits - decimals;
+        digits[first..point].CopyTo(destination[position..]);
+        position += point - first;
+        var last = MostDigits;
+        while (last > point && digits[last - 1] == (byte)'0')
+            last--;
+        if (last > point)
+        {
             destination[position++] = (byte)'.';
-            // Leading zeros of the fraction (0.000123): a fixed width of `digits`.
-            for (var i = position + digits - 1; i >= position; i--)
-            {
-                destination[i] = (byte)('0' + fraction % 10);
-                fraction /= 10;
-            }
-            position += digits;
+            digits[point..last].CopyTo(destination[position..]);
+            position += last - point;
         }
         bytesWritten = position;
         return true;

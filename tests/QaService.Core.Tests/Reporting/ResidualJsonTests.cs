@@ -56,6 +56,38 @@ public sealed class ResidualJsonTests
         Assert.True(differing < 20, $"{differing} of 20,000 differ from the base library by one unit");
     }
 
+    /// <summary>
+    /// The definition, written out with .NET's integer formatting: the units Math.Round(value·10^d, away from zero), as
+    /// decimal digits with the point d places from the right, trailing zeros and a bare point dropped, a sign only when
+    /// the units are not zero. Every decimals setting, magnitudes up to the 2^53 limit, both signs, exact ties.
+    /// </summary>
+    [Fact]
+    public void Writes_the_rounded_units_with_the_point_placed()
+    {
+        var random = new Random(7);
+        Span<byte> text = stackalloc byte[FixedDecimalUtf8.MaximumBytes];
+        for (var i = 0; i < 200_000; i++)
+        {
+            var decimals = random.Next(0, FixedDecimalUtf8.MaximumDecimals + 1);
+            var value = (random.NextDouble() - 0.5) * Math.Pow(10, random.Next(-decimals - 3, 16 - decimals));
+            if (i % 7 == 0)
+                value = Math.Round(value * Math.Pow(10, decimals + 1)) / Math.Pow(10, decimals + 1); // ties and short fractions
+            var scaled = Math.Round(value * Math.Pow(10, decimals), MidpointRounding.AwayFromZero);
+            if (!(Math.Abs(scaled) < 9_007_199_254_740_992.0))
+                continue;
+            Assert.True(FixedDecimalUtf8.TryFormat(value, decimals, text, out var length));
+            Assert.Equal(Definition((long)scaled, decimals), Encoding.ASCII.GetString(text[..length]));
+        }
+    }
+
+    private static string Definition(long units, int decimals)
+    {
+        var digits = Math.Abs(units).ToString(CultureInfo.InvariantCulture).PadLeft(decimals + 1, '0');
+        var whole = digits[..^decimals];
+        var fraction = digits[^decimals..].TrimEnd('0');
+        return (units < 0 ? "-" : "") + whole + (fraction.Length > 0 ? "." + fraction : "");
+    }
+
     [Theory]
     [InlineData(double.NaN)]
     [InlineData(double.PositiveInfinity)]
