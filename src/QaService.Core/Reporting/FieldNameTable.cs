@@ -1,4 +1,3 @@
-using System.Buffers.Binary;
 using System.Text.Json;
 
 namespace QaService.Core.Reporting;
@@ -59,12 +58,12 @@ internal sealed class FieldNameTable
         return -1;
     }
 
-    /// <summary>Up to 8 bytes as one little-endian integer, zero-padded.</summary>
+    /// <summary>Up to 8 bytes as one little-endian integer, zero-padded (names are short: a few shifts, no buffer).</summary>
     private static ulong Pack(ReadOnlySpan<byte> bytes)
     {
-        Span<byte> padded = stackalloc byte[PackedBytes];
-        padded.Clear();
-        bytes.CopyTo(padded);
-        return BinaryPrimitives.ReadUInt64LittleEndian(padded);
+        ulong key = 0;
+        for (var i = 0; i < bytes.Length; i++)
+            key |= (ulong)bytes[i] << (8 * i);
+        return key;
     }
 }
