@@ -29,30 +29,33 @@ internal sealed class FieldNameTable
     public int IndexOf(ref Utf8JsonReader reader)
     {
         if (!reader.ValueIsEscaped && !reader.HasValueSequence)
-        {
-            var name = reader.ValueSpan;
-            if (name.Length is > 0 and <= PackedBytes)
-            {
-                ulong key = Pack(name);
-                for (var i = 0; i < packed.Length; i++)
-                {
-                    if (packed[i] == key)
-                        return i;
-                }
-                return -1;
-            }
+            return IndexOf(reader.ValueSpan);
 
-            for (var i = 0; i < utf8.Length; i++)
+        for (var i = 0; i < names.Length; i++)
+        {
+            if (reader.ValueTextEquals(names[i]))
+                return i;
+        }
+        return -1;
+    }
+
+    /// <summary>The index of a name given as its raw UTF-8 bytes with no escape in them, or −1.</summary>
+    public int IndexOf(ReadOnlySpan<byte> name)
+    {
+        if (name.Length is > 0 and <= PackedBytes)
+        {
+            ulong key = Pack(name);
+            for (var i = 0; i < packed.Length; i++)
             {
-                if (name.SequenceEqual(utf8[i]))
+                if (packed[i] == key)
                     return i;
             }
             return -1;
         }
 
-        for (var i = 0; i < names.Length; i++)
+        for (var i = 0; i < utf8.Length; i++)
         {
-            if (reader.ValueTextEquals(names[i]))
+            if (name.SequenceEqual(utf8[i]))
                 return i;
         }
         return -1;
