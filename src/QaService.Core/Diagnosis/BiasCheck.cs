@@ -67,7 +67,7 @@ public sealed class BiasCheck : IDataCheck
     }
 
     /// <summary>Two-sided critical t at <see cref="SignificanceLevel"/> per degrees of freedom (MathNet StudentT.InvCDF), kept per count.</summary>
-    private static readonly BoundedMemo<int> CriticalT = new(freedom => StudentT.InvCDF(0, 1, freedom, 1 - SignificanceLevel / 2), MostKeptCounts);
+    private static readonly BoundedMemo<int, double> CriticalT = new(freedom => StudentT.InvCDF(0, 1, freedom, 1 - SignificanceLevel / 2), MostKeptCounts);
 
     /// <summary>Counts whose critical values are kept (about 40 bytes each).</summary>
     private const int MostKeptCounts = 4096;

@@ -78,7 +78,7 @@ public static class StandardConfidence
     }
 
     /// <summary>Beta(k + 1, n − k) quantile at the level (MathNet Beta.InvCDF, a root search), kept per (k, n, level).</summary>
-    private static readonly BoundedMemo<(int K, int N, double Level)> ClopperPearsonUpper =
+    private static readonly BoundedMemo<(int K, int N, double Level), double> ClopperPearsonUpper =
         new(key => Beta.InvCDF(key.K + 1, key.N - key.K, key.Level), mostEntries: 16_384);
 
     /// <summary>The values without a copy when they already sit in an array or list (a copy of 400,000 is a large-object allocation).</summary>

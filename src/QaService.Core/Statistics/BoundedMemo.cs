@@ -6,18 +6,19 @@ namespace QaService.Core.Statistics;
 /// Values of a pure function kept per key for the life of the process, up to <c>mostEntries</c> keys (past that, computed
 /// on each call). For distribution quantiles that depend only on a count and a fixed level (a critical t for n − 1 degrees
 /// of freedom, a Clopper–Pearson bound for k of n): MathNet finds each by a root search over its CDF, tens of
-/// microseconds, while the counts of real deliveries repeat. The kept value is the function's own result, bit for bit.
+/// microseconds, while the counts of real deliveries repeat), and for tables built from a few parameters (the
+/// bootstrap's draw counts). The kept value is the function's own result, bit for bit.
 /// </summary>
-internal sealed class BoundedMemo<TKey>(Func<TKey, double> compute, int mostEntries)
+internal sealed class BoundedMemo<TKey, TValue>(Func<TKey, TValue> compute, int mostEntries)
     where TKey : notnull
 {
-    private readonly ConcurrentDictionary<TKey, double> values = new();
+    private readonly ConcurrentDictionary<TKey, TValue> values = new();
 
-    public double this[TKey key] => values.TryGetValue(key, out var value) ? value : Add(key);
+    public TValue this[TKey key] => values.TryGetValue(key, out var value) ? value : Add(key);
 
-    private double Add(TKey key)
+    private TValue Add(TKey key)
     {
-        double value = compute(key);
+        TValue value = compute(key);
         if (values.Count < mostEntries)
             values.TryAdd(key, value);
         return value;

@@ -21,6 +21,9 @@ internal static class CircularRadiusStarts
     /// <summary>Tables kept for probabilities other than the report's own (a caller's own figures).</summary>
     private const int MostOtherProbabilities = 16;
 
+    /// <summary>CEP, CE90 and R95: the probabilities the test above always lets in.</summary>
+    private const int ReportsOwnProbabilities = 3;
+
     private static readonly ConcurrentDictionary<double, IInterpolation> Tables = new();
 
     /// <summary>The tabulated ln ρ for <paramref name="probability"/> at axis ratio <paramref name="q"/> in [0, 1]; null when no table is kept for it.</summary>
@@ -29,7 +32,7 @@ internal static class CircularRadiusStarts
         if (!Tables.TryGetValue(probability, out var table))
         {
             bool reportsOwn = probability is HorizontalAccuracy.CepProbability or HorizontalAccuracy.Ce90Probability or HorizontalAccuracy.R95Probability;
-            if (!reportsOwn && Tables.Count >= MostOtherProbabilities + 3)
+            if (!reportsOwn && Tables.Count >= MostOtherProbabilities + ReportsOwnProbabilities)
                 return null;
             table = Tables.GetOrAdd(probability, Build);
         }

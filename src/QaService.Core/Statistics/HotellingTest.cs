@@ -25,7 +25,7 @@ public sealed record HotellingResult(int N, double MeanE, double MeanN, double T
 public static class HotellingTest
 {
     /// <summary>F(2, ν) quantile at 1 − α (MathNet FisherSnedecor), kept per (ν, α): it depends only on the count.</summary>
-    private static readonly BoundedMemo<(int Freedom, double Alpha)> CriticalF =
+    private static readonly BoundedMemo<(int Freedom, double Alpha), double> CriticalF =
         new(key => new FisherSnedecor(2, key.Freedom).InverseCumulativeDistribution(1.0 - key.Alpha), mostEntries: 4096);
 
     /// <summary>Runs the test at significance <paramref name="alpha"/>; null when n &lt; 3 or S is singular.</summary>

@@ -128,11 +128,11 @@ public static class OffsetErrorRadius
             + (4.0 * ((muE * muE * varE) + (2.0 * muE * muN * cov) + (muN * muN * varN)));
         double nu = 2.0 * mean * mean / variance, scale = variance / (2.0 * mean);
         double z = MathNet.Numerics.Distributions.Normal.InvCDF(0.0, 1.0, probability);
-        double spread = 2.0 / (9.0 * nu);
-        double root = 1.0 - spread + (z * Math.Sqrt(spread));
+        double cubeRootVariance = 2.0 / (9.0 * nu); // of (χ²/ν)^(1/3), Wilson–Hilferty
+        double root = 1.0 - cubeRootVariance + (z * Math.Sqrt(cubeRootVariance));
         return root > 0.0 && double.IsFinite(scale * nu)
             ? Math.Sqrt(scale * nu * root * root * root)
-            : Math.Sqrt(mean - trace + (trace * -Math.Log(1.0 - probability)));
+            : Math.Sqrt((offset * offset) + (trace * -Math.Log(1.0 - probability)));
     }
 
     private static double LinearisedCircular(double probability, BivariateNormal distribution, double offset)

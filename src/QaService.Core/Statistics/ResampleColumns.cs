@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.Numerics;
 
 namespace QaService.Core.Statistics;
@@ -20,7 +19,7 @@ internal static class ResampleColumns
     /// <summary>Most (n, resamples, seed) tables kept (at most ~8 MB with the default 2,000 resamples).</summary>
     private const int CacheEntries = 64;
 
-    private static readonly ConcurrentDictionary<(int N, int Resamples, ulong Seed), byte[]> Cache = new();
+    private static readonly BoundedMemo<(int N, int Resamples, ulong Seed), byte[]> Cache = new(Build, CacheEntries);
 
     /// <summary>Resamples per column, padded to whole vectors (the padding holds zeros).</summary>
     public static int Stride(int resamples) => (resamples + Vector<byte>.Count - 1) / Vector<byte>.Count * Vector<byte>.Count;
@@ -30,11 +29,11 @@ internal static class ResampleColumns
     /// <see cref="SplitMix64.NextIndex"/> from <paramref name="seed"/>, resample after resample (the order of the
     /// textbook loop). Depends only on (n, resamples, seed), so it is built once per process and shared.
     /// </summary>
-    public static byte[] Draws(int n, int resamples, ulong seed)
+    public static byte[] Draws(int n, int resamples, ulong seed) => Cache[(n, resamples, seed)];
+
+    private static byte[] Build((int N, int Resamples, ulong Seed) key)
     {
-        var key = (n, resamples, seed);
-        if (Cache.TryGetValue(key, out var cached))
-            return cached;
+        var (n, resamples, seed) = key;
         int stride = Stride(resamples);
         var random = new SplitMix64(seed);
         var columns = new byte[n * stride];
@@ -43,9 +42,6 @@ internal static class ResampleColumns
             for (int i = 0; i < n; i++)
                 columns[(random.NextIndex(n) * stride) + b]++;
         }
-
-        if (Cache.Count < CacheEntries)
-            Cache.TryAdd(key, columns);
         return columns;
     }
 

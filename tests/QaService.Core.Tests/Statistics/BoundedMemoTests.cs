@@ -10,7 +10,7 @@ public sealed class BoundedMemoTests
     public void Gives_the_functions_own_value_and_computes_each_kept_key_once()
     {
         int calls = 0;
-        var memo = new BoundedMemo<int>(freedom => { calls++; return StudentT.InvCDF(0, 1, freedom, 0.975); }, mostEntries: 3);
+        var memo = new BoundedMemo<int, double>(freedom => { calls++; return StudentT.InvCDF(0, 1, freedom, 0.975); }, mostEntries: 3);
         foreach (int freedom in new[] { 23, 23, 5, 23, 5, 1 })
             Assert.Equal(StudentT.InvCDF(0, 1, freedom, 0.975), memo[freedom]);
         Assert.Equal(3, calls);
