@@ -1,4 +1,6 @@
+using System.Globalization;
 using QaService.Core.Geodesy;
+using QaService.Core.Ingest;
 
 namespace QaService.Core.Assessment;
 
@@ -7,14 +9,20 @@ namespace QaService.Core.Assessment;
 /// array, the latter only once some fix gives one. A 1,000,000-fix upload holds a handful of arrays instead of a million
 /// point objects; frame alignment moves the fixes by writing the position columns in place. Presents itself as the
 /// request's fix list: a <see cref="FramedPoint"/> is made only when one is asked for by index (tests, small paths);
-/// the pairing, the residuals and the checks read the columns.
+/// the pairing, the residuals and the checks read the columns. The ids of fixes read from a file stay in the file's
+/// <see cref="IdTexts"/> chunks (a location per row, no string per fix); ids from JSON points are kept as their strings.
 /// </summary>
 public sealed class FixTable : IReadOnlyList<FramedPoint>
 {
     private const long NoTime = long.MinValue;
 
+    /// <summary>The id location of a fix that gave none: its id is "#" and its 1-based position in the set.</summary>
+    private const long GeneratedId = -2;
+
     private readonly int[] indexes;
-    private readonly string[] ids;
+    private readonly string[]? ids;
+    private readonly IdCharacters? idSource;
+    private readonly long[]? idLocations;
     private readonly string?[] markIds;
     private readonly double[] latitudes, longitudes, heights;
     private readonly bool[] hasHeight;
@@ -23,10 +31,14 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
     private FixAttributes?[]? attributes;
 
     /// <summary>An empty table of <paramref name="count"/> rows, filled row by row (each row by one writer).</summary>
-    internal FixTable(int count)
+    /// <param name="idSource">Where the fixes' ids are when they were read from a file (rows then set with <see cref="SetIdAt"/>).</param>
+    internal FixTable(int count, IdCharacters? idSource = null)
     {
         indexes = new int[count];
-        ids = new string[count];
+        if (idSource is null)
+            ids = new string[count];
+        else
+            (this.idSource, idLocations) = (idSource, new long[count]);
         markIds = new string?[count];
         latitudes = new double[count];
         longitudes = new double[count];
@@ -34,7 +46,7 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
         hasHeight = new bool[count];
     }
 
-    public int Count => ids.Length;
+    public int Count => indexes.Length;
 
     /// <summary>The columns of any fix list: the list itself when it is a table, else a copy (tests and small requests).</summary>
     public static FixTable Of(IReadOnlyList<FramedPoint> fixes)
@@ -56,8 +68,20 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
 
     internal void Set(int row, int index, string id, string? markId, GeodeticCoordinate geodetic, bool withHeight)
     {
+        Set(row, index, markId, geodetic, withHeight);
+        (ids ?? throw new InvalidOperationException("a table of a file's ids is written with SetIdAt"))[row] = id;
+    }
+
+    /// <summary>Writes row <paramref name="row"/> of a table whose ids are in its <see cref="IdTexts"/>: the id at <paramref name="idLocation"/>, or none (generated from the index).</summary>
+    internal void SetIdAt(int row, int index, long? idLocation, string? markId, GeodeticCoordinate geodetic, bool withHeight)
+    {
+        Set(row, index, markId, geodetic, withHeight);
+        idLocations![row] = idLocation ?? GeneratedId;
+    }
+
+    private void Set(int row, int index, string? markId, GeodeticCoordinate geodetic, bool withHeight)
+    {
         indexes[row] = index;
-        ids[row] = id;
         markIds[row] = markId;
         SetGeodetic(row, geodetic);
         hasHeight[row] = withHeight;
@@ -108,7 +132,19 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
         return column;
     }
 
-    public string Id(int row) => ids[row];
+    public string Id(int row) => ids?[row] ?? (idLocations![row] == GeneratedId ? GeneratedIdOf(indexes[row]) : IdText(row).ToString());
+
+    /// <summary>The fix's id as characters, without a string when the table holds the file's ids (the report writer, lookups by id).</summary>
+    public ReadOnlyMemory<char> IdText(int row)
+    {
+        if (ids is not null)
+            return ids[row].AsMemory();
+        var location = idLocations![row];
+        return location == GeneratedId ? GeneratedIdOf(indexes[row]).AsMemory() : idSource!.Memory(location);
+    }
+
+    /// <summary>The id given to a fix without one: "#" and its 1-based position in the set.</summary>
+    internal static string GeneratedIdOf(int index) => string.Create(CultureInfo.InvariantCulture, $"#{index + 1}");
 
     public string? MarkId(int row) => markIds[row];
 
@@ -135,7 +171,7 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
     public ReadOnlySpan<double> Longitudes => longitudes;
 
     public FramedPoint this[int index] =>
-        new(indexes[index], ids[index], markIds[index], Geodetic(index), hasHeight[index], Value(sigmaHorizontal, index), Value(sigmaVertical, index), Time(index))
+        new(indexes[index], Id(index), markIds[index], Geodetic(index), hasHeight[index], Value(sigmaHorizontal, index), Value(sigmaVertical, index), Time(index))
         {
             Attributes = Attributes(index),
         };

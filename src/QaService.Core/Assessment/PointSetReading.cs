@@ -2,6 +2,7 @@ using static QaService.Core.InvariantText;
 using System.Globalization;
 using QaService.Core.Geodesy;
 using QaService.Core.Geodesy.Catalog;
+using QaService.Core.Ingest;
 
 namespace QaService.Core.Assessment;
 
@@ -30,7 +31,7 @@ internal static class PointSetReading
     /// <param name="markCheck">The mark ids the fixes may name, and where a fix naming another is reported.</param>
     public static FixTable ReadFixes(PointSet set, PointSetFrame frame, string pointer, List<InputError> errors, MarkCheck markCheck)
     {
-        var target = new FixColumns(set.Points?.Count ?? 0);
+        var target = new FixColumns(set.Points?.Count ?? 0, (set.Points as PointColumns)?.Ids.Characters);
         ReadInto(set, frame, pointer, errors, markCheck, target);
         return target.Joined();
     }
@@ -62,10 +63,20 @@ internal static class PointSetReading
         }
     }
 
+    /// <summary>
+    /// A read point's id: its string (a JSON point), or its place in the file's ids (a point read from a file, trimmed;
+    /// <see cref="IdTexts.None"/> for a fix that gave none, whose id is then generated from its position).
+    /// </summary>
+    private readonly record struct PointId(string? Text, IdCharacters? Source, long Location)
+    {
+        public string ToString(int index) =>
+            Text ?? (Location == IdTexts.None ? FixTable.GeneratedIdOf(index) : Source!.Memory(Location).ToString());
+    }
+
     /// <summary>Where a read point goes: slot <c>index</c> (its position in the set), written by one thread only.</summary>
     private abstract class PointTarget
     {
-        public abstract void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+        public abstract void Add(int index, PointId id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
             DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes);
     }
 
@@ -74,23 +85,26 @@ internal static class PointSetReading
     {
         private readonly FramedPoint?[] slots = new FramedPoint?[count];
 
-        public override void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+        public override void Add(int index, PointId id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
             DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes) =>
-            slots[index] = new FramedPoint(index, id, markId, geodetic, hasHeight, sigmaH, sigmaV, time) { VelocityMetresPerYear = velocity, Attributes = attributes };
+            slots[index] = new FramedPoint(index, id.ToString(index), markId, geodetic, hasHeight, sigmaH, sigmaV, time) { VelocityMetresPerYear = velocity, Attributes = attributes };
 
         public List<FramedPoint> Joined() => slots.OfType<FramedPoint>().ToList();
     }
 
-    /// <summary>Fixes straight into columns; a point skipped for a problem leaves its row out.</summary>
-    private sealed class FixColumns(int count) : PointTarget
+    /// <summary>Fixes straight into columns (ids read from a file stay in its chunks); a point skipped for a problem leaves its row out.</summary>
+    private sealed class FixColumns(int count, IdCharacters? fileIds) : PointTarget
     {
-        private readonly FixTable table = new(count);
+        private readonly FixTable table = new(count, fileIds);
         private readonly bool[] present = new bool[count];
 
-        public override void Add(int index, string id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
+        public override void Add(int index, PointId id, string? markId, GeodeticCoordinate geodetic, bool hasHeight, double? sigmaH, double? sigmaV,
             DateTimeOffset? time, EnuVector? velocity, FixAttributes? attributes)
         {
-            table.Set(index, index, id, markId, geodetic, hasHeight);
+            if (fileIds is null)
+                table.Set(index, index, id.ToString(index), markId, geodetic, hasHeight);
+            else
+                table.SetIdAt(index, index, id.Location == IdTexts.None ? null : id.Location, markId, geodetic, hasHeight);
             table.SetExtras(index, sigmaH, sigmaV, time, attributes);
             present[index] = true;
         }
@@ -105,18 +119,20 @@ internal static class PointSetReading
         var isMark = markCheck is null;
         var useHeight = frame.Heights != HeightReference.None;
         var columns = points as IPointValueList;
+        var file = points as PointColumns;
         var shared = new Dictionary<FixAttributes, FixAttributes>();
         for (var i = from; i < to; i++)
         {
             var pointPointer = new PointPointer(pointer, i);
             PointValues point;
-            var present = columns is not null ? columns.TryGetValues(i, out point) : TryCopy(points[i], out point);
+            var present = file is not null ? ValuesWithoutId(file, i, out point)
+                : columns is not null ? columns.TryGetValues(i, out point) : TryCopy(points[i], out point);
             if (!present)
             {
                 errors.Add(new(pointPointer, "a point must be an object, not null"));
                 continue;
             }
-            var id = ReadId(point, pointPointer, isMark, i, errors);
+            var id = file is not null ? ReadId(file.Ids, pointPointer, isMark, i, errors) : ReadId(point, pointPointer, isMark, i, errors);
             if (!isMark && point.Mark is { } mark && string.IsNullOrWhiteSpace(mark))
                 errors.Add(new($"{pointPointer}/mark", "mark must name a mark id, or be left out"));
             CheckSigma(point.SigmaH, pointPointer, "sigmaH", errors);
@@ -137,7 +153,7 @@ internal static class PointSetReading
             var hasHeight = useHeight && (point.H is not null || frame.Crs.Kind == CrsKind.Geocentric);
             var markId = point.Mark?.Trim();
             var velocity = columns is null && points[i] is { } record ? ReadVelocity(record, pointPointer, isMark, errors) : null;
-            result.Add(i, id, markId, geodetic.Value, hasHeight,
+            result.Add(i, id.Value, markId, geodetic.Value, hasHeight,
                 point.SigmaH is { } sh ? sh * frame.Crs.Unit.MetresPerUnit : null,
                 point.SigmaV is { } sv ? sv * frame.Crs.Unit.MetresPerUnit : null,
                 point.Time, velocity, attributes);
@@ -231,21 +247,54 @@ internal static class PointSetReading
         return record is not null;
     }
 
-    private static string? ReadId(in PointValues point, PointPointer pointer, bool isMark, int index, List<InputError> errors)
+    private static bool ValuesWithoutId(PointColumns file, int index, out PointValues point)
     {
-        if (string.IsNullOrWhiteSpace(point.Id))
+        file.ValuesWithoutId(index, out point);
+        return true;
+    }
+
+    private static PointId? ReadId(in PointValues point, PointPointer pointer, bool isMark, int index, List<InputError> errors) =>
+        CheckId(point.Id, pointer, isMark, errors) switch
+        {
+            IdState.Given => new PointId(point.Id!.Trim(), null, IdTexts.None),
+            IdState.Generated => new PointId(FixTable.GeneratedIdOf(index), null, IdTexts.None),
+            _ => null,
+        };
+
+    /// <summary>As for a JSON point, with the id read in place: its trimmed location, no string.</summary>
+    private static PointId? ReadId(IdTexts ids, PointPointer pointer, bool isMark, int index, List<InputError> errors)
+    {
+        var text = ids.TextOf(index);
+        switch (CheckId(text, pointer, isMark, errors))
+        {
+            case IdState.Given:
+                var start = text.Length - text.TrimStart().Length;
+                return new PointId(null, ids.Characters, IdTexts.Slice(ids.LocationOf(index), start, text.Trim().Length));
+            case IdState.Generated:
+                return new PointId(null, ids.Characters, IdTexts.None);
+            default:
+                return null;
+        }
+    }
+
+    private enum IdState { Given, Generated, Rejected }
+
+    /// <summary>A blank id: generated for a fix, a problem for a mark; over <see cref="RequestValidator.MaximumTextLength"/> characters: a problem.</summary>
+    private static IdState CheckId(ReadOnlySpan<char> id, PointPointer pointer, bool isMark, List<InputError> errors)
+    {
+        if (id.IsWhiteSpace())
         {
             if (!isMark)
-                return string.Create(CultureInfo.InvariantCulture, $"#{index + 1}");
+                return IdState.Generated;
             errors.Add(new($"{pointer}/id", "every mark needs an id (fixes name it in \"mark\")"));
-            return null;
+            return IdState.Rejected;
         }
-        if (point.Id.Length > RequestValidator.MaximumTextLength)
+        if (id.Length > RequestValidator.MaximumTextLength)
         {
             errors.Add(new($"{pointer}/id", $"id is longer than {RequestValidator.MaximumTextLength} characters"));
-            return null;
+            return IdState.Rejected;
         }
-        return point.Id.Trim();
+        return IdState.Given;
     }
 
     private static void CheckSigma(double? sigma, PointPointer point, string field, List<InputError> errors)

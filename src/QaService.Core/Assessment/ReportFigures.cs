@@ -88,14 +88,14 @@ public static class ReportFigures
         var flagged = checks.FirstOrDefault(c => c.Id == "outliers")?.Items;
         if (flagged is null || flagged.Count == 0)
             return null;
-        var set = flagged.ToHashSet(StringComparer.Ordinal);
+        var set = flagged.ToHashSet(StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
         var rows = columns.Rows;
         // Which rows stay is looked up side by side (one slot each); the kept values are then gathered in row order.
         var keptRow = new bool[rows.Count];
         ParallelWork.ForRanges(rows.Count, (start, end) =>
         {
             for (var i = start; i < end; i++)
-                keptRow[i] = !set.Contains(columns.FixIdOf(i));
+                keptRow[i] = !set.Contains(columns.FixIdTextOf(i));
         });
         var keptE = new List<double>(rows.Count);
         var keptN = new List<double>(rows.Count);

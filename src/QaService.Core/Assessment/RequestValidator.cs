@@ -263,9 +263,15 @@ public static class RequestValidator
         var result = new Dictionary<string, string>(StringComparer.Ordinal);
         if (exclusions is null)
             return result;
-        var fixIds = new HashSet<string>(fixes.Count, StringComparer.Ordinal);
-        for (var i = 0; i < fixes.Count; i++)
-            fixIds.Add(fixes.Id(i));
+        // The named ids that some fix has, found in one pass over the fixes by their characters (no string per fix).
+        var named = exclusions.Select(e => e?.Fix?.Trim()).OfType<string>().ToHashSet(StringComparer.Ordinal);
+        var fixIds = new HashSet<string>(StringComparer.Ordinal);
+        var byText = named.GetAlternateLookup<ReadOnlySpan<char>>();
+        for (var i = 0; i < fixes.Count && fixIds.Count < named.Count; i++)
+        {
+            if (byText.TryGetValue(fixes.IdText(i).Span, out var id))
+                fixIds.Add(id);
+        }
         for (var i = 0; i < exclusions.Count; i++)
         {
             var pointer = Format($"/exclusions/{i}");

@@ -78,6 +78,9 @@ internal sealed class ResidualColumns
     /// <summary>The fix id of residual <paramref name="row"/>.</summary>
     public string FixIdOf(int row) => Rows is ResidualTable table ? table.FixId(row) : Rows[row].Fix;
 
+    /// <summary>The fix id of residual <paramref name="row"/> as characters (no string made for an id read from a file).</summary>
+    public ReadOnlySpan<char> FixIdTextOf(int row) => Rows is ResidualTable table ? table.FixIdText(row).Span : Rows[row].Fix;
+
     /// <summary>The mark id of residual <paramref name="row"/>.</summary>
     public string MarkIdOf(int row) => Rows is ResidualTable table ? table.MarkId(row) : Rows[row].Mark;
 

@@ -60,6 +60,9 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
 
     public string FixId(int row) => fixes.Id(FixRows[row]);
 
+    /// <summary>The fix id of residual <paramref name="row"/> as characters (no string for ids read from a file).</summary>
+    public ReadOnlyMemory<char> FixIdText(int row) => fixes.IdText(FixRows[row]);
+
     public string PairedBy(int row) => ByProximity is { } p && p[row] ? MarkPairing.ByProximity : MarkPairing.ById;
 
     public string? ExclusionReason(int row) => Excluded?[row];
@@ -107,6 +110,7 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
         double[] east = new double[n], north = new double[n], up = new double[n], horizontal = new double[n];
         var exclusions = input.ExclusionReasonsByFixId;
         var excluded = exclusions.Count == 0 ? null : new string?[n];
+        var reasonOf = ExclusionLookup(exclusions, fixes);
         ParallelWork.ForRanges(n, (start, end) =>
         {
             for (var i = start; i < end; i++)
@@ -116,12 +120,20 @@ public sealed class ResidualTable : IReadOnlyList<Residual>
                 (east[i], north[i], up[i]) = (enu.EastMetres, enu.NorthMetres, enu.UpMetres);
                 horizontal[i] = Math.Sqrt(enu.EastMetres * enu.EastMetres + enu.NorthMetres * enu.NorthMetres);
                 if (excluded is not null)
-                    excluded[i] = exclusions.GetValueOrDefault(fixes.Id(fix));
+                    excluded[i] = reasonOf(fix);
             }
         });
         if (excluded is not null && Array.TrueForAll(excluded, reason => reason is null))
             excluded = null;
         return new ResidualTable(marks, fixes, pairs.MarkRows, pairs.FixRows, east, north, up, horizontal, pairs.ByProximity, excluded);
+    }
+
+    /// <summary>The exclusion reason of a fix row, looked up by the id's characters when the reasons are an ordinal dictionary (no string per fix).</summary>
+    private static Func<int, string?> ExclusionLookup(IReadOnlyDictionary<string, string> exclusions, FixTable fixes)
+    {
+        if (exclusions is Dictionary<string, string> byId && byId.TryGetAlternateLookup<ReadOnlySpan<char>>(out var byText))
+            return fix => byText.TryGetValue(fixes.IdText(fix).Span, out var reason) ? reason : null;
+        return fix => exclusions.GetValueOrDefault(fixes.Id(fix));
     }
 
     /// <summary>The rows that count (not excluded), in order; this table itself when every row counts.</summary>

@@ -12,7 +12,7 @@ public sealed class PointColumns : IPointValueList
     private const long NoTime = long.MinValue;
 
     private readonly ChunkedColumn<long> rows = new();
-    private readonly ChunkedColumn<string?> ids = new();
+    private readonly IdTexts ids = new();
     private readonly ChunkedColumn<string?> marks = new();
     private readonly Dictionary<string, string> markNames = new(StringComparer.Ordinal);
     private string? lastMark;
@@ -49,9 +49,12 @@ public sealed class PointColumns : IPointValueList
     /// <summary>A point read in place (CSV): empty text means not given; the mark is kept as one shared string per distinct id.</summary>
     /// <param name="numbers">The <see cref="NumberFieldNames"/> fields in order, NaN where not given (readers accept finite numbers only).</param>
     internal void Add(long row, ReadOnlySpan<char> id, ReadOnlySpan<char> mark, ReadOnlySpan<double> numbers, DateTimeOffset? time, AttributeTexts attributes) =>
-        Append(row, id.IsEmpty ? null : id.ToString(), mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks, attributes);
+        Append(row, id, mark.IsEmpty ? null : Shared(mark), numbers, time?.UtcTicks, attributes);
 
-    private void Append(long row, string? id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks, AttributeTexts attributes)
+    /// <summary>The points' ids, read in place (validation keeps their locations rather than a string per fix).</summary>
+    internal IdTexts Ids => ids;
+
+    private void Append(long row, ReadOnlySpan<char> id, string? sharedMark, ReadOnlySpan<double> numbers, long? utcTicks, AttributeTexts attributes)
     {
         for (var field = 0; field < TextFields; field++)
         {
@@ -110,12 +113,19 @@ public sealed class PointColumns : IPointValueList
     /// <summary>Point <paramref name="index"/> read from the columns (never null here).</summary>
     public bool TryGetValues(int index, out PointValues point)
     {
+        ValuesWithoutId(index, out point);
+        point = point with { Id = ids.StringOf(index) };
+        return true;
+    }
+
+    /// <summary>Point <paramref name="index"/> without its id (<see cref="PointValues.Id"/> null): read that from <see cref="Ids"/>.</summary>
+    internal void ValuesWithoutId(int index, out PointValues point)
+    {
         var ticks = timeTicks?[index] ?? NoTime;
-        point = new PointValues(ids[index], marks[index], At(0, index), At(1, index), At(2, index), At(3, index), At(4, index),
+        point = new PointValues(null, marks[index], At(0, index), At(1, index), At(2, index), At(3, index), At(4, index),
             At(5, index), At(6, index), At(7, index), At(8, index), At(9, index),
             ticks == NoTime ? null : new DateTimeOffset(ticks, TimeSpan.Zero),
             texts[0]?[index], texts[1]?[index], texts[2]?[index], At(10, index), texts[3]?[index]);
-        return true;
     }
 
     private double? At(int field, int index) => numbers[field] is { } column && column[index] is var v && !double.IsNaN(v) ? v : null;

@@ -39,7 +39,7 @@ internal static class ResidualJsonBytes
         Append(MarkPrefix, destination, ref at);
         AppendString(residual.Mark, destination, ref at, ref cache);
         Append(FixPrefix, destination, ref at);
-        AppendString(residual.Fix, destination, ref at, ref cache);
+        AppendString(residual.Fix.Span, destination, ref at);
         Append(DEPrefix, destination, ref at);
         AppendNumber(residual.DE, ResidualJsonConverter.ComponentDecimals, destination, ref at);
         Append(DNPrefix, destination, ref at);
@@ -98,6 +98,21 @@ internal static class ResidualJsonBytes
     private static void AppendNumber(double value, int decimals, Span<byte> destination, ref int at) =>
         Utf8Appender.AppendNumber(value, decimals, value, destination, ref at);
 
+    /// <summary>A text that is not one shared string (a fix id read in place): escaped without the cache when it needs it.</summary>
+    private static void AppendString(ReadOnlySpan<char> text, Span<byte> destination, ref int at)
+    {
+        destination[at++] = (byte)'"';
+        if (IsPlain(text))
+        {
+            for (var i = 0; i < text.Length; i++)
+                destination[at + i] = (byte)text[i];
+            at += text.Length;
+        }
+        else
+            Append(JsonEncodedText.Encode(text).EncodedUtf8Bytes, destination, ref at);
+        destination[at++] = (byte)'"';
+    }
+
     private static void AppendString(string text, Span<byte> destination, ref int at, ref EncodedStringCache cache)
     {
         destination[at++] = (byte)'"';
@@ -116,7 +131,7 @@ internal static class ResidualJsonBytes
     /// True when the default encoder (System.Text.Encodings.Web JavaScriptEncoder.Default, which System.Text.Json
     /// writes with) leaves every character as it is: printable ASCII except <c>" \ &amp; ' &lt; &gt; + `</c>.
     /// </summary>
-    private static bool IsPlain(string text)
+    private static bool IsPlain(ReadOnlySpan<char> text)
     {
         foreach (var c in text)
         {
@@ -151,16 +166,16 @@ internal struct EncodedStringCache
 /// One residual's values as the writer reads them, from a <see cref="Residual"/> object or straight from a row of an
 /// <see cref="Assessment.ResidualTable"/> (a value on the stack: no object per residual).
 /// </summary>
-internal readonly record struct ResidualFields(string Mark, string Fix, double DE, double DN, double? DU, double DH, string PairedBy, string? Excluded,
+internal readonly record struct ResidualFields(string Mark, ReadOnlyMemory<char> Fix, double DE, double DN, double? DU, double DH, string PairedBy, string? Excluded,
     double MarkLatitude, double MarkLongitude, Assessment.FixAttributes? Attributes)
 {
     public static ResidualFields Of(Residual r) =>
-        new(r.Mark, r.Fix, r.DE, r.DN, r.DU, r.DH, r.PairedBy, r.Excluded, r.MarkLatitude, r.MarkLongitude, r.Attributes);
+        new(r.Mark, r.Fix.AsMemory(), r.DE, r.DN, r.DU, r.DH, r.PairedBy, r.Excluded, r.MarkLatitude, r.MarkLongitude, r.Attributes);
 
     public static ResidualFields Of(Assessment.ResidualTable table, int row)
     {
         var mark = table.MarkPosition(row);
-        return new(table.MarkId(row), table.FixId(row), table.East[row], table.North[row], table.UpOrNull(row), table.Horizontal[row],
+        return new(table.MarkId(row), table.FixIdText(row), table.East[row], table.North[row], table.UpOrNull(row), table.Horizontal[row],
             table.PairedBy(row), table.ExclusionReason(row), mark.LatitudeDegrees, mark.LongitudeDegrees, table.Attributes(row));
     }
 }
