@@ -101,29 +101,33 @@ internal static class ResidualJsonBytes
     /// <summary>A text that is not one shared string (a fix id read in place): escaped without the cache when it needs it.</summary>
     private static void AppendString(ReadOnlySpan<char> text, Span<byte> destination, ref int at)
     {
-        destination[at++] = (byte)'"';
-        if (IsPlain(text))
-        {
-            for (var i = 0; i < text.Length; i++)
-                destination[at + i] = (byte)text[i];
-            at += text.Length;
-        }
-        else
-            Append(JsonEncodedText.Encode(text).EncodedUtf8Bytes, destination, ref at);
-        destination[at++] = (byte)'"';
+        if (!TryAppendPlain(text, destination, ref at))
+            AppendQuoted(JsonEncodedText.Encode(text).EncodedUtf8Bytes, destination, ref at);
     }
 
     private static void AppendString(string text, Span<byte> destination, ref int at, ref EncodedStringCache cache)
     {
+        if (!TryAppendPlain(text, destination, ref at))
+            AppendQuoted(cache.Encode(text), destination, ref at);
+    }
+
+    /// <summary>Writes a text the encoder leaves alone, quoted, byte per character; false (nothing written) for any other.</summary>
+    private static bool TryAppendPlain(ReadOnlySpan<char> text, Span<byte> destination, ref int at)
+    {
+        if (!IsPlain(text))
+            return false;
+        destination[at] = (byte)'"';
+        for (var i = 0; i < text.Length; i++)
+            destination[at + 1 + i] = (byte)text[i];
+        at += text.Length + 1;
         destination[at++] = (byte)'"';
-        if (IsPlain(text))
-        {
-            for (var i = 0; i < text.Length; i++)
-                destination[at + i] = (byte)text[i];
-            at += text.Length;
-        }
-        else
-            Append(cache.Encode(text), destination, ref at);
+        return true;
+    }
+
+    private static void AppendQuoted(ReadOnlySpan<byte> encoded, Span<byte> destination, ref int at)
+    {
+        destination[at++] = (byte)'"';
+        Append(encoded, destination, ref at);
         destination[at++] = (byte)'"';
     }
 
