@@ -16,9 +16,6 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
 {
     private const long NoTime = long.MinValue;
 
-    /// <summary>The id location of a fix that gave none: its id is "#" and its 1-based position in the set.</summary>
-    private const long GeneratedId = -2;
-
     private readonly int[] indexes;
     private readonly string[]? ids;
     private readonly IdCharacters? idSource;
@@ -72,11 +69,14 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
         (ids ?? throw new InvalidOperationException("a table of a file's ids is written with SetIdAt"))[row] = id;
     }
 
-    /// <summary>Writes row <paramref name="row"/> of a table whose ids are in its <see cref="IdTexts"/>: the id at <paramref name="idLocation"/>, or none (generated from the index).</summary>
-    internal void SetIdAt(int row, int index, long? idLocation, string? markId, GeodeticCoordinate geodetic, bool withHeight)
+    /// <summary>
+    /// Writes row <paramref name="row"/> of a table whose ids are in its <see cref="IdTexts"/>: the id at
+    /// <paramref name="idLocation"/>; <see cref="IdTexts.None"/> for a fix that gave none (its id is generated from the index).
+    /// </summary>
+    internal void SetIdAt(int row, int index, long idLocation, string? markId, GeodeticCoordinate geodetic, bool withHeight)
     {
         Set(row, index, markId, geodetic, withHeight);
-        idLocations![row] = idLocation ?? GeneratedId;
+        idLocations![row] = idLocation;
     }
 
     private void Set(int row, int index, string? markId, GeodeticCoordinate geodetic, bool withHeight)
@@ -132,7 +132,7 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
         return column;
     }
 
-    public string Id(int row) => ids?[row] ?? (idLocations![row] == GeneratedId ? GeneratedIdOf(indexes[row]) : IdText(row).ToString());
+    public string Id(int row) => ids?[row] ?? (idLocations![row] == IdTexts.None ? GeneratedIdOf(indexes[row]) : IdText(row).ToString());
 
     /// <summary>The fix's id as characters, without a string when the table holds the file's ids (the report writer, lookups by id).</summary>
     public ReadOnlyMemory<char> IdText(int row)
@@ -140,7 +140,7 @@ public sealed class FixTable : IReadOnlyList<FramedPoint>
         if (ids is not null)
             return ids[row].AsMemory();
         var location = idLocations![row];
-        return location == GeneratedId ? GeneratedIdOf(indexes[row]).AsMemory() : idSource!.Memory(location);
+        return location == IdTexts.None ? GeneratedIdOf(indexes[row]).AsMemory() : idSource!.Memory(location);
     }
 
     /// <summary>The id given to a fix without one: "#" and its 1-based position in the set.</summary>

@@ -104,7 +104,7 @@ internal static class PointSetReading
             if (fileIds is null)
                 table.Set(index, index, id.ToString(index), markId, geodetic, hasHeight);
             else
-                table.SetIdAt(index, index, id.Location == IdTexts.None ? null : id.Location, markId, geodetic, hasHeight);
+                table.SetIdAt(index, index, id.Location, markId, geodetic, hasHeight);
             table.SetExtras(index, sigmaH, sigmaV, time, attributes);
             present[index] = true;
         }
@@ -268,8 +268,9 @@ internal static class PointSetReading
         switch (CheckId(text, pointer, isMark, errors))
         {
             case IdState.Given:
-                var start = text.Length - text.TrimStart().Length;
-                return new PointId(null, ids.Characters, IdTexts.Slice(ids.LocationOf(index), start, text.Trim().Length));
+                var trimmedStart = text.TrimStart();
+                var start = text.Length - trimmedStart.Length;
+                return new PointId(null, ids.Characters, IdTexts.Slice(ids.LocationOf(index), start, trimmedStart.TrimEnd().Length));
             case IdState.Generated:
                 return new PointId(null, ids.Characters, IdTexts.None);
             default:

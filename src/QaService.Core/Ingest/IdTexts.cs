@@ -18,24 +18,24 @@ internal sealed class IdTexts
 
     // A location: chunk (25 bits) | offset in the chunk (15 bits) | length (23 bits). WholeChunk in the length field means
     // the text is its own chunk, however long (a file may hold any text; validation rejects ids over 200 characters).
-    private const int LengthBits = 23;
-    private const int OffsetBits = ChunkShift;
-    private const long LengthMask = (1L << LengthBits) - 1;
-    private const long OffsetMask = (1L << OffsetBits) - 1;
-    private const long WholeChunk = LengthMask;
+    internal const int LengthBits = 23;
+    internal const int OffsetBits = ChunkShift;
+    internal const long LengthMask = (1L << LengthBits) - 1;
+    internal const long OffsetMask = (1L << OffsetBits) - 1;
+    internal const long WholeChunk = LengthMask;
 
     /// <summary>The location of "not given" (an empty field).</summary>
     public const long None = -1;
 
-    private readonly List<char[]> chunks;
+    private readonly List<char[]> chunks = [];
     private readonly ChunkedColumn<long> locations = new();
+    private char[] open = [];
+    private int openChunk, used;
 
-    public IdTexts() => Characters = new IdCharacters(chunks = []);
+    public IdTexts() => Characters = new IdCharacters(chunks);
 
     /// <summary>The characters alone, which is all a holder of locations needs (the validated fixes keep these, not the per-point column).</summary>
     public IdCharacters Characters { get; }
-    private char[] open = [];
-    private int openChunk, used;
 
     public int Count => locations.Count;
 
@@ -49,17 +49,6 @@ internal sealed class IdTexts
     public ReadOnlySpan<char> TextOf(int index) => Text(locations[index]);
 
     public ReadOnlySpan<char> Text(long location) => Characters.Memory(location).Span;
-
-    public ReadOnlyMemory<char> Memory(long location) => Characters.Memory(location);
-
-    internal static ReadOnlyMemory<char> Memory(List<char[]> chunks, long location)
-    {
-        if (location == None)
-            return ReadOnlyMemory<char>.Empty;
-        var chunk = chunks[(int)(location >> (OffsetBits + LengthBits))];
-        var length = location & LengthMask;
-        return length == WholeChunk ? chunk : chunk.AsMemory((int)((location >> LengthBits) & OffsetMask), (int)length);
-    }
 
     /// <summary>Point <paramref name="index"/>'s id as a string; null when not given.</summary>
     public string? StringOf(int index) => locations[index] == None ? null : TextOf(index).ToString();
@@ -101,5 +90,12 @@ internal sealed class IdTexts
 /// <summary>The characters of an <see cref="IdTexts"/>, read by location (<see cref="IdTexts.LocationOf"/>, <see cref="IdTexts.Slice"/>).</summary>
 internal sealed class IdCharacters(List<char[]> chunks)
 {
-    public ReadOnlyMemory<char> Memory(long location) => IdTexts.Memory(chunks, location);
+    public ReadOnlyMemory<char> Memory(long location)
+    {
+        if (location == IdTexts.None)
+            return ReadOnlyMemory<char>.Empty;
+        var chunk = chunks[(int)(location >> (IdTexts.OffsetBits + IdTexts.LengthBits))];
+        var length = location & IdTexts.LengthMask;
+        return length == IdTexts.WholeChunk ? chunk : chunk.AsMemory((int)((location >> IdTexts.LengthBits) & IdTexts.OffsetMask), (int)length);
+    }
 }

@@ -34,7 +34,7 @@ public sealed class IdTextsTests
         {
             Assert.Equal(given[i], ids.StringOf(i));
             Assert.Equal(given[i] ?? "", ids.TextOf(i).ToString());
-            Assert.Equal(given[i] ?? "", ids.Memory(ids.LocationOf(i)).ToString());
+            Assert.Equal(given[i] ?? "", ids.Characters.Memory(ids.LocationOf(i)).ToString());
         }
     }
 
